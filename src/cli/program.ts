@@ -1,0 +1,58 @@
+// Builds the commander program from one file per command and runs it in-process,
+// mapping errors to the exit codes of the CLI contract (no stack traces for users).
+import { Command, CommanderError } from "commander";
+import { isPlumblineError } from "../util/errors.js";
+import { CliContext, type CliIo } from "./context.js";
+import { commands } from "./commands/index.js";
+import { VERSION } from "../util/version.js";
+
+/** Exit code for a bug in plumbline itself (never for bad input). */
+export const EXIT_INTERNAL = 4;
+
+export function buildProgram(ctx: CliContext): Command {
+  const program = new Command();
+  program
+    .name("plumbline")
+    .description(
+      "Cost-optimal planning for PDDL models with action costs, with optimality proofs anyone can re-check.\n" +
+        "Plans are only as good as the model: a proven-optimal plan of a wrong model is still wrong.",
+    )
+    .version(VERSION)
+    .showHelpAfterError("(run with --help for usage)")
+    .exitOverride()
+    .configureOutput({
+      writeOut: (s) => ctx.io.stdout.write(s),
+      writeErr: (s) => ctx.io.stderr.write(s),
+    });
+  for (const register of commands) register(program, ctx);
+  return program;
+}
+
+/**
+ * Runs the CLI on `argv` (without "node" and the script path) and returns the exit code.
+ * 0 success or positive verdict, 1 negative verdict, 2 bad input or usage, 3 limit reached.
+ */
+export async function runCli(argv: string[], io: CliIo = { stdout: process.stdout, stderr: process.stderr }, signal?: AbortSignal): Promise<number> {
+  const ctx = new CliContext(io, signal ?? new AbortController().signal);
+  const program = buildProgram(ctx);
+  try {
+    await program.parseAsync(argv, { from: "user" });
+    return ctx.exitCode;
+  } catch (e) {
+    if (e instanceof CommanderError) {
+      // help and version exit with 0; usage errors with 2
+      if (e.code === "commander.helpDisplayed" || e.code === "commander.version" || e.code === "commander.help") return 0;
+      return 2;
+    }
+    if (isPlumblineError(e)) {
+      if (ctx.json) ctx.io.stdout.write(JSON.stringify({ error: e.message, code: e.code, pos: e.pos ?? null }, null, 2) + "\n");
+      ctx.io.stderr.write(`plumbline: error: ${e.message}\n`);
+      return e.exitCode;
+    }
+    const err = e as Error;
+    ctx.io.stderr.write(`plumbline: internal error: ${err?.message ?? String(e)}\n`);
+    if (process.env.PLUMBLINE_DEBUG) ctx.io.stderr.write(`${err?.stack ?? ""}\n`);
+    else ctx.io.stderr.write("(this is a bug in plumbline; set PLUMBLINE_DEBUG=1 for a stack trace)\n");
+    return EXIT_INTERNAL;
+  }
+}
