@@ -21,7 +21,11 @@ export interface CondEffect {
  * deletes first, then adds (a fact both added and deleted ends up true).
  */
 export interface Action {
-  /** Plan-file form, lower case: "(drive truck1 quay depot)". Unique within a Task. */
+  /**
+   * Plan-file form, lower case: "(drive truck1 quay depot)". Unique within a Task, except
+   * that the disjuncts of one ground action's disjunctive precondition become separate
+   * actions sharing the name (their effects agree whenever they apply).
+   */
   name: string;
   /** Lifted schema name ("drive") and its arguments, in order. */
   schema: string;

@@ -1,0 +1,33 @@
+// `plumbline ground DOMAIN PROBLEM`: grounds a model and prints its size (facts, actions,
+// zero-cost actions, conditional effects, seconds); wiring only, the work is in src/ground.
+import type { Command } from "commander";
+import { groundFiles, groundStats } from "../../ground/index.js";
+import { withCommonOptions, type CliContext } from "../context.js";
+
+export function registerGround(program: Command, ctx: CliContext): void {
+  withCommonOptions(
+    program
+      .command("ground")
+      .description("ground a PDDL model and print its size: facts, actions, zero-cost actions, conditional effects, seconds")
+      .argument("<domain>", "PDDL domain file")
+      .argument("<problem>", "PDDL problem file")
+      .option("--relevance", "also prune actions and facts that cannot matter for the goal (backward relevance)"),
+  ).action((domain: string, problem: string, opts: { json?: boolean; quiet?: boolean; verbose?: boolean; relevance?: boolean }) => {
+    ctx.configure(opts);
+    const { task, seconds } = groundFiles(domain, problem, { relevance: !!opts.relevance });
+    const st = groundStats(task, Number(seconds.toFixed(3)));
+    ctx.result({ ...st, domain: task.domainName, problem: task.problemName, costModel: task.costModel, relevance: !!opts.relevance, goalFacts: task.goal.length + task.goalNeg.length });
+    const rows: Array<[string, string]> = [
+      ["domain", task.domainName],
+      ["problem", task.problemName],
+      ["cost model", task.costModel],
+      ["facts", String(st.facts)],
+      ["actions", String(st.actions)],
+      ["zero-cost actions", String(st.zeroCostActions)],
+      ["conditional effects", String(st.conditionalEffects)],
+      ["seconds", seconds.toFixed(3)],
+    ];
+    const w = Math.max(...rows.map((r) => r[0].length));
+    ctx.out(rows.map(([k, v]) => `${k.padEnd(w)}  ${v}`).join("\n"));
+  });
+}

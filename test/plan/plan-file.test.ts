@@ -1,0 +1,113 @@
+// Plan files (read, write, errors with plan-file positions), replay input errors (unknown
+// action, arity, unknown object, wrong type), and mapping plan steps to ground actions.
+import { describe, expect, it } from "vitest";
+import { ground } from "../../src/ground/index.js";
+import { actionNamesToIndices, formatPlan, parsePlan, replayPlan } from "../../src/plan/index.js";
+import { replayGround } from "../support/reference.js";
+import { fixture, fixtureModel } from "../fixtures/frontend/problems.js";
+import { expectPlumblineError, marked } from "../pddl/marker.js";
+
+const quay = () => fixtureModel("quay/domain.pddl", "quay/yard.pddl");
+
+describe("plan files", () => {
+  it("reads one step per line, ignores comments and case, keeps positions", () => {
+    const steps = parsePlan("; a plan\n(Load C1 truck1 main-quay)   ; first\n\n  (drive truck1 main-quay depot1)\n; cost = 5 (found by hand)\n", "p.txt");
+    expect(steps.map((s) => [s.name, s.args])).toEqual([
+      ["load", ["c1", "truck1", "main-quay"]],
+      ["drive", ["truck1", "main-quay", "depot1"]],
+    ]);
+    expect(steps[1]).toMatchObject({ line: 4, col: 3, namePos: { line: 4, col: 4 } });
+    expect(steps[0].argPos![2]).toEqual({ line: 2, col: 17 });
+  });
+
+  it("formatPlan writes what parsePlan reads, with a trailing comment", () => {
+    const text = formatPlan(
+      [
+        { name: "Pick", args: ["Ball1", "room-a", "left"] },
+        { name: "move", args: ["room-a", "room-b"] },
+      ],
+      "cost = 2 (example)",
+    );
+    expect(text).toBe("(pick ball1 room-a left)\n(move room-a room-b)\n; cost = 2 (example)\n");
+    expect(parsePlan(text, "p").map((s) => s.name)).toEqual(["pick", "move"]);
+    expect(formatPlan([])).toBe("\n");
+  });
+
+  const SYNTAX: Array<[string, string, RegExp]> = [
+    ["a bare word", "(pick a b c)\n«pick", /expected a plan step '\(action object …\)', found 'pick'/],
+    ["an empty step", "«()", /expected an action name in '\(\)'/],
+    ["a nested list", "(pick «(a) b)", /expected an object name, found '\('/],
+    ["a number as action", "(«12 a)", /expected an action name, found '12'/],
+    ["a variable argument", "(pick «?x)", /expected an object name, found '\?x'/],
+    ["a step number prefix", "«0: (pick a)", /unexpected character ':' in '0:'/],
+    ["an unclosed step", "(pick a\n«", /expected '\)' to close the '\(' opened at 1:1, found end of file/],
+  ];
+  for (const [label, src, message] of SYNTAX) {
+    it(`syntax error: ${label}`, () => {
+      const m = marked(src);
+      expectPlumblineError(() => parsePlan(m.text, "bad.plan"), { code: "parse", message, file: "bad.plan", line: m.line, col: m.col });
+    });
+  }
+});
+
+describe("replay input errors name the plan file's line:col", () => {
+  const CASES: Array<[string, string, RegExp]> = [
+    ["unknown action", "(load c1 truck1 main-quay)\n(«lift c1 truck1)", /unknown action 'lift' in plan step \(lift c1 truck1\)/],
+    ["wrong arity", "«(drive truck1 depot1)", /action 'drive' takes 3 arguments, found 2 in \(drive truck1 depot1\)/],
+    ["unknown object", "(drive truck1 main-quay «depot9)", /unknown object 'depot9' in plan step/],
+    ["wrong type", "(drive «barge1 main-quay depot1)", /object 'barge1' is not of type truck \(parameter \?t of 'drive'\)/],
+    ["wrong type with either", "(load c1 truck1 main-quay)\n(load c1 «c2 main-quay)", /object 'c2' is not of type \(either truck barge\) \(parameter \?v of 'load'\)/],
+  ];
+  for (const [label, src, message] of CASES) {
+    it(label, () => {
+      const m = marked(src);
+      expectPlumblineError(() => replayPlan(quay(), parsePlan(m.text, "yard.plan"), "yard.plan"), { code: "semantic", message, file: "yard.plan", line: m.line, col: m.col });
+    });
+  }
+
+  it("bad input is refused even after a failing step (the whole plan is checked first)", () => {
+    const m = marked("(inspect depot1)\n(«fly c1)");
+    expectPlumblineError(() => replayPlan(quay(), parsePlan(m.text, "yard.plan"), "yard.plan"), { code: "semantic", message: /unknown action 'fly'/, file: "yard.plan", line: 2, col: 2 });
+  });
+});
+
+describe("actionNamesToIndices", () => {
+  it("maps a valid plan to ground actions whose replay on the Task agrees with the lifted replay", () => {
+    const model = quay();
+    const task = ground(model);
+    const steps = parsePlan(fixture("quay/yard.plan"), "yard.plan");
+    const ids = actionNamesToIndices(task, steps, { appendGoalAction: true });
+    expect(ids.length).toBe(steps.length + 1);
+    expect(task.actions[ids[ids.length - 1]].synthetic).toBe(true);
+    const g = replayGround(task, ids);
+    expect(g.ok).toBe(true);
+    if (g.ok) {
+      expect(g.cost).toBe(replayPlan(model, steps).cost);
+      expect(task.goal.every((f) => g.state.has(f))).toBe(true);
+    }
+  });
+
+  it("picks the applicable one of several ground actions with the same name", () => {
+    const model = quay();
+    const task = ground(model);
+    const steps = parsePlan("(drive truck1 main-quay depot1)\n(seal c2 depot1)\n(load c2 truck1 depot1)", "p");
+    const ids = actionNamesToIndices(task, steps);
+    const load = task.actions[ids[2]];
+    expect(load.pre.map((f) => task.facts[f])).toContain("(sealed c2)");
+    expect(replayGround(task, ids).ok).toBe(true);
+  });
+
+  it("a step with no ground action is an error at the step's position", () => {
+    const model = fixtureModel("gripper/domain.pddl", "gripper/four-balls.pddl");
+    const task = ground(model, { relevance: true });
+    // picking with a "gripper" that is a room has no reachable ground action
+    const m = marked("(pick ball1 room-a left)\n«(pick ball2 room-a room-b)");
+    expectPlumblineError(() => actionNamesToIndices(task, parsePlan(m.text, "g.plan"), { planFile: "g.plan" }), {
+      code: "semantic",
+      message: /plan step 2 \(pick ball2 room-a room-b\) has no ground action in the task/,
+      file: "g.plan",
+      line: m.line,
+      col: m.col,
+    });
+  });
+});
