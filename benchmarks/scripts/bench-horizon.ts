@@ -1,0 +1,220 @@
+// `npm run bench:horizon`: how tight each completeness threshold is — the horizon by every
+// method beside the shortest cost-optimal plan length, their ratio, and geometric means.
+//
+// Usage: tsx benchmarks/scripts/bench-horizon.ts [DIR] [--time-limit S] [--max-states N] [--out FILE.json]
+//   DIR (default benchmarks/domains): every folder holding domain.pddl contributes its other
+//   *.pddl files as problems; a folder of domain-NN.pddl / problem-NN.pddl pairs is paired by NN.
+// Columns: C = cost of the first plan (greedy best-first search), the horizon for "cheaper than
+// C" by each method, L = fewest actions among cost-optimal plans (exact, from the explicit state
+// graph; "≥" marks an A* plan's length when the graph is too large, which flatters the ratio),
+// H/L, and H*/L where H* is the horizon for C = optimum + 1: a completeness threshold must then
+// admit an optimal plan, so H*/L < 1 would be a soundness bug.
+import { mkdirSync, readdirSync, statSync } from "node:fs";
+import { basename, dirname, join, resolve } from "node:path";
+import { groundFiles } from "../../src/ground/index.js";
+import type { Task } from "../../src/ground/task.js";
+import { computeHorizon, type HorizonReport } from "../../src/horizon/index.js";
+import { optimalPlan, reachableGraph } from "../../src/measure/index.js";
+import { astar, gbfs } from "../../src/search/index.js";
+import { isPlumblineError } from "../../src/util/errors.js";
+import { writeFileAtomic } from "../../src/util/files.js";
+
+interface Instance {
+  name: string;
+  domain: string;
+  problem: string;
+}
+
+interface Row {
+  instance: string;
+  facts: number;
+  actions: number;
+  zeroCost: number;
+  C: number | null;
+  optimum: number | null;
+  length: number | null;
+  lengthSource: "exact" | "astar" | "none";
+  methods: Record<string, string | null>;
+  horizon: string | null;
+  winner: string | null;
+  ratio: number | null;
+  horizonAtOptimum: string | null;
+  ratioAtOptimum: number | null;
+  groundSeconds: number;
+  horizonSeconds: number;
+  note?: string;
+}
+
+function parseArgs(argv: string[]) {
+  let dir = "benchmarks/domains";
+  let timeLimit = 30;
+  let maxStates = 200_000;
+  let out: string | null = "benchmarks/results/horizon/latest.json";
+  for (let i = 0; i < argv.length; i++) {
+    const a = argv[i];
+    if (a === "--time-limit") timeLimit = Number(argv[++i]);
+    else if (a === "--max-states") maxStates = Number(argv[++i]);
+    else if (a === "--out") out = argv[++i];
+    else if (a === "--no-out") out = null;
+    else if (a.startsWith("--")) throw new Error(`unknown option ${a}`);
+    else dir = a;
+  }
+  if (!(timeLimit > 0) || !(maxStates > 0)) throw new Error("--time-limit and --max-states must be positive");
+  return { dir: resolve(dir), timeLimit, maxStates, out };
+}
+
+/** Instances under `root`, sorted by name. */
+function findInstances(root: string): Instance[] {
+  const out: Instance[] = [];
+  const walk = (d: string) => {
+    const names = readdirSync(d).sort();
+    const pddl = names.filter((n) => n.endsWith(".pddl"));
+    if (names.includes("domain.pddl")) {
+      for (const p of pddl) if (p !== "domain.pddl" && !p.startsWith("domain")) out.push({ name: `${basename(d)}/${p.replace(/\.pddl$/, "")}`, domain: join(d, "domain.pddl"), problem: join(d, p) });
+    } else {
+      for (const p of pddl) {
+        const m = /^problem-?(\w+)\.pddl$/.exec(p);
+        if (m && names.includes(`domain-${m[1]}.pddl`)) out.push({ name: `${basename(d)}/${p.replace(/\.pddl$/, "")}`, domain: join(d, `domain-${m[1]}.pddl`), problem: join(d, p) });
+      }
+    }
+    for (const n of names) {
+      const p = join(d, n);
+      if (statSync(p).isDirectory() && !n.startsWith(".") && n !== "node_modules") walk(p);
+    }
+  };
+  walk(root);
+  return out;
+}
+
+function shortestOptimal(task: Task, maxStates: number, deadline: number): { cost: number | null; length: number | null; source: Row["lengthSource"] } {
+  try {
+    const g = reachableGraph(task, maxStates);
+    const o = optimalPlan(g);
+    return { cost: o.cost, length: o.length, source: o.cost === null ? "none" : "exact" };
+  } catch (e) {
+    if (!isPlumblineError(e)) throw e;
+  }
+  const r = astar(task, { heuristic: "landmark-cut", deadline });
+  if (r.status === "solved") return { cost: r.cost, length: r.plan!.length, source: "astar" };
+  return { cost: null, length: null, source: "none" };
+}
+
+function value(r: HorizonReport, method: string): string | null {
+  const m = r.methods.find((x) => x.method === method);
+  return m && m.value !== null ? m.valueText : null;
+}
+
+const short = (t: string | null) => (t === null ? "-" : t.length > 9 ? `${t.slice(0, 3)}e${t.length - 1}` : t);
+
+function runInstance(inst: Instance, timeLimit: number, maxStates: number): Row {
+  const { task, seconds: groundSeconds } = groundFiles(inst.domain, inst.problem);
+  const zeroCost = task.actions.filter((a) => a.cost === 0).length;
+  const row: Row = {
+    instance: inst.name,
+    facts: task.facts.length,
+    actions: task.actions.length,
+    zeroCost,
+    C: null,
+    optimum: null,
+    length: null,
+    lengthSource: "none",
+    methods: {},
+    horizon: null,
+    winner: null,
+    ratio: null,
+    horizonAtOptimum: null,
+    ratioAtOptimum: null,
+    groundSeconds,
+    horizonSeconds: 0,
+  };
+  const first = gbfs(task, { deadline: Date.now() + timeLimit * 1000 });
+  if (first.status !== "solved") {
+    row.note = `no first plan (${first.status})`;
+    return row;
+  }
+  row.C = first.cost;
+  const t0 = performance.now();
+  const rep = computeHorizon(task, first.cost!);
+  row.horizonSeconds = (performance.now() - t0) / 1000;
+  for (const m of rep.methods) row.methods[m.method] = m.value === null ? null : m.valueText;
+  row.horizon = rep.horizonText;
+  row.winner = rep.winner;
+  const opt = shortestOptimal(task, maxStates, Date.now() + timeLimit * 1000);
+  row.optimum = opt.cost;
+  row.length = opt.length;
+  row.lengthSource = opt.source;
+  if (opt.length !== null && opt.length > 0 && Number.isFinite(rep.horizon)) row.ratio = rep.horizon / opt.length;
+  if (opt.cost !== null) {
+    const atOpt = computeHorizon(task, opt.cost + 1);
+    row.horizonAtOptimum = atOpt.horizonText;
+    if (opt.length !== null && opt.length > 0 && Number.isFinite(atOpt.horizon)) row.ratioAtOptimum = atOpt.horizon / opt.length;
+  }
+  return row;
+}
+
+function geomean(xs: number[]): number | null {
+  if (xs.length === 0) return null;
+  return Math.exp(xs.reduce((s, x) => s + Math.log(x), 0) / xs.length);
+}
+
+function main(): void {
+  const { dir, timeLimit, maxStates, out } = parseArgs(process.argv.slice(2));
+  const instances = findInstances(dir);
+  if (instances.length === 0) throw new Error(`no instances under ${dir}`);
+  const rows: Row[] = [];
+  const header = ["instance", "facts", "acts", "zero", "C", "opt", "L", "cost", "zero-cost", "compos.", "explicit", "H", "winner", "H/L", "H*/L"];
+  const widths = [30, 6, 6, 5, 5, 5, 5, 7, 9, 9, 8, 7, 13, 6, 6];
+  const line = (cells: string[]) => cells.map((c, i) => (i === 0 || i === 12 ? c.padEnd(widths[i]) : c.padStart(widths[i]))).join(" ");
+  console.log(`horizon tightness on ${instances.length} instances under ${dir} (first plan by GBFS, ${timeLimit} s limits)`);
+  console.log(line(header));
+  for (const inst of instances) {
+    let row: Row;
+    try {
+      row = runInstance(inst, timeLimit, maxStates);
+    } catch (e) {
+      console.log(line([inst.name, "error: " + (e instanceof Error ? e.message.split("\n")[0] : String(e))]));
+      continue;
+    }
+    rows.push(row);
+    const L = row.length === null ? "-" : `${row.lengthSource === "astar" ? "≥" : ""}${row.length}`;
+    console.log(
+      line([
+        row.instance.slice(0, 30),
+        String(row.facts),
+        String(row.actions),
+        String(row.zeroCost),
+        String(row.C ?? "-"),
+        String(row.optimum ?? "-"),
+        L,
+        short(row.methods.cost ?? null),
+        short(row.methods["zero-cost"] ?? null),
+        short(row.methods.compositional ?? null),
+        short(row.methods.explicit ?? null),
+        short(row.horizon),
+        row.winner ?? "-",
+        row.ratio === null ? "-" : row.ratio.toFixed(2),
+        row.ratioAtOptimum === null ? "-" : row.ratioAtOptimum.toFixed(2),
+      ]) + (row.note ? `  (${row.note})` : ""),
+    );
+  }
+  const ratios = rows.flatMap((r) => (r.ratio === null ? [] : [r.ratio]));
+  const atOpt = rows.flatMap((r) => (r.ratioAtOptimum === null ? [] : [r.ratioAtOptimum]));
+  const gm = geomean(ratios);
+  const gmOpt = geomean(atOpt);
+  const below = rows.filter((r) => r.ratioAtOptimum !== null && r.ratioAtOptimum < 1 && r.lengthSource === "exact");
+  const groundTotal = rows.reduce((s, r) => s + r.groundSeconds, 0);
+  const horizonTotal = rows.reduce((s, r) => s + r.horizonSeconds, 0);
+  console.log("");
+  console.log(`geometric mean H/L  = ${gm === null ? "-" : gm.toFixed(2)} over ${ratios.length} instances (target ≤ 4)`);
+  console.log(`geometric mean H*/L = ${gmOpt === null ? "-" : gmOpt.toFixed(2)} over ${atOpt.length} instances (H* for C = optimum + 1; must be ≥ 1)`);
+  console.log(`horizon time / grounding time = ${groundTotal > 0 ? (horizonTotal / groundTotal).toFixed(2) : "-"} (same run)`);
+  if (below.length > 0) console.log(`SOUNDNESS ALARM: H*/L < 1 on ${below.map((r) => r.instance).join(", ")}`);
+  if (out) {
+    mkdirSync(dirname(out), { recursive: true });
+    writeFileAtomic(out, JSON.stringify({ dir, timeLimit, maxStates, geometricMean: gm, geometricMeanAtOptimum: gmOpt, rows }, null, 2) + "\n");
+    console.log(`rows written to ${out}`);
+  }
+  if (below.length > 0) process.exitCode = 1;
+}
+
+main();

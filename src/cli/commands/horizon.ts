@@ -1,0 +1,112 @@
+// `plumbline horizon DOMAIN PROBLEM`: completeness thresholds by every method with their
+// derivations, and the winner. Wiring only; the work is in src/horizon (and src/search for C).
+import type { Command } from "commander";
+import { groundFiles } from "../../ground/index.js";
+import { checkUpperCost, computeHorizon, horizonReportJson, HORIZON_DEFAULTS, type HorizonReport, type MethodResult } from "../../horizon/index.js";
+import { gbfs } from "../../search/index.js";
+import { PlumblineError } from "../../util/errors.js";
+import { withCommonOptions, type CliContext } from "../context.js";
+import { positiveOption } from "./measure.js";
+import { deadlineFrom } from "./search.js";
+
+interface HorizonCliOptions {
+  json?: boolean;
+  quiet?: boolean;
+  verbose?: boolean;
+  upperBound?: string;
+  timeLimit?: string;
+  relevance?: boolean;
+  maxProjectionStates?: string;
+  maxExplicitStates?: string;
+}
+
+export function registerHorizon(program: Command, ctx: CliContext): void {
+  withCommonOptions(
+    program
+      .command("horizon")
+      .description(
+        "completeness thresholds for 'is there a plan cheaper than C?': by every method, with the numbers each was derived from, and the smallest as the horizon.\n" +
+          "Without --upper-bound, C is the cost of a first plan found by greedy best-first search.",
+      )
+      .argument("<domain>", "PDDL domain file")
+      .argument("<problem>", "PDDL problem file")
+      .option("--upper-bound <C>", "cost of a known plan: bound plans cheaper than C (a whole number; 'inf' bounds plan existence)")
+      .option("--time-limit <seconds>", "time allowed for the first-plan search when --upper-bound is not given")
+      .option("--no-relevance", "do not prune actions and facts irrelevant to the goal before bounding")
+      .option("--max-projection-states <n>", `states explored per projection before using domain sizes (default ${HORIZON_DEFAULTS.maxProjectionStates})`)
+      .option("--max-explicit-states <n>", `reachable states explored for the explicit method (default ${HORIZON_DEFAULTS.maxExplicitStates})`),
+  ).action((domain: string, problem: string, opts: HorizonCliOptions) => {
+    ctx.configure(opts);
+    const maxProjectionStates = positiveOption("--max-projection-states", opts.maxProjectionStates, HORIZON_DEFAULTS.maxProjectionStates);
+    const maxExplicitStates = positiveOption("--max-explicit-states", opts.maxExplicitStates, HORIZON_DEFAULTS.maxExplicitStates);
+    let upper: number | null = null;
+    if (opts.upperBound !== undefined) {
+      upper = /^(inf|infinity)$/i.test(opts.upperBound) ? Number.POSITIVE_INFINITY : Number(opts.upperBound);
+      if (!(upper === Number.POSITIVE_INFINITY || /^\d+$/.test(opts.upperBound)))
+        throw new PlumblineError("usage", `--upper-bound expects a non-negative whole number or 'inf', found '${opts.upperBound}'`);
+      checkUpperCost(upper);
+    }
+    const deadline = deadlineFrom(opts.timeLimit);
+    const { task, seconds } = groundFiles(domain, problem);
+    ctx.note(`grounded ${task.facts.length} facts, ${task.actions.length} actions in ${seconds.toFixed(2)} s`);
+    let source = "--upper-bound";
+    let firstPlan: { status: string; cost: number | null; length: number | null } | null = null;
+    if (upper === null) {
+      const r = gbfs(task, { deadline, signal: ctx.signal });
+      firstPlan = { status: r.status, cost: r.cost, length: r.plan ? r.plan.length : null };
+      if (r.status === "solved") {
+        upper = r.cost!;
+        source = "first plan (greedy best-first search)";
+      } else {
+        upper = Number.POSITIVE_INFINITY;
+        source = r.status === "unsolvable" ? "no plan exists (search space exhausted): bounding plan existence" : "no plan found within the limits: bounding plan existence";
+      }
+      ctx.note(`upper cost C = ${upper} from ${source}`);
+    }
+    const report = computeHorizon(task, upper, { relevance: opts.relevance !== false, maxProjectionStates, maxExplicitStates });
+    ctx.result({ domain: task.domainName, problem: task.problemName, upperCostSource: source, firstPlan, ...horizonReportJson(report) });
+    ctx.out(formatReport(report, source));
+  });
+}
+
+function valueText(m: MethodResult): string {
+  if (m.value === null) return "n/a";
+  return m.valueText!.length > 24 ? `${m.valueText!.slice(0, 6)}…(${m.valueText!.length} digits)` : m.valueText!;
+}
+
+function why(m: MethodResult): string {
+  const d = m.derivation;
+  if (d.notApplicable) return `not applicable: ${d.notApplicable}`;
+  if (d.note) return String(d.note);
+  switch (m.method) {
+    case "cost":
+      return `floor((${d.C} - 1) / ${d.c_min})`;
+    case "zero-cost":
+      return `k + (k+1)·l0 with k = ${d.k}, l0 = ${d.l0} (${d.l0Source}); ${d.zeroCostActions} zero-cost actions`;
+    case "compositional": {
+      const contributing = (d.contributing as unknown[]).length;
+      return `${d.components} SCCs (${contributing} contribute), ${d.projectionsExplored} projections explored, ${d.projectionsAbandoned} abandoned`;
+    }
+    case "explicit":
+      return `${d.reachableStates} reachable states - 1`;
+    default:
+      return String(d.formula ?? "");
+  }
+}
+
+function formatReport(r: HorizonReport, source: string): string {
+  const lines: string[] = [];
+  lines.push(`upper cost C   ${Number.isFinite(r.upperCost) ? r.upperCost : "∞"} (${source})`);
+  lines.push(`horizon        ${r.horizonText} steps (method: ${r.winner})`);
+  lines.push("");
+  const rows = r.methods.map((m) => [m.method, valueText(m), why(m)]);
+  const w0 = Math.max(6, ...rows.map((x) => x[0].length));
+  const w1 = Math.max(5, ...rows.map((x) => x[1].length));
+  lines.push(`${"method".padEnd(w0)}  ${"value".padStart(w1)}  derivation`);
+  for (const [a, b, c] of rows) lines.push(`${a.padEnd(w0)}  ${b.padStart(w1)}  ${c}`);
+  const vars = r.analysis.variables as { count: number; multiValued: number };
+  lines.push("");
+  lines.push(`${vars.count} variables (${vars.multiValued} multi-valued) from h² mutex groups; full derivations with --json`);
+  lines.push("Any plan cheaper than C has a counterpart of at most `horizon` actions that is no dearer.");
+  return lines.join("\n");
+}
