@@ -78,7 +78,7 @@ export function factoredSpecArb(o: FactoredArbOptions = {}): fc.Arbitrary<Factor
       const n = domains.length;
       const varVal = fc.integer({ min: 0, max: n - 1 }).chain((v) => fc.tuple(fc.constant(v), fc.integer({ min: 0, max: domains[v] - 1 })));
       // an integer draw (fast-check biases doubles toward 0, which made nearly every cost 0)
-      const cost = fc.integer({ min: 0, max: 999 }).chain((r) => (r < zeroShare * 1000 ? fc.constant(0) : fc.integer({ min: 1, max: maxCost })));
+      const cost = fc.noBias(fc.integer({ min: 0, max: 999 })).chain((r) => (r < zeroShare * 1000 ? fc.constant(0) : fc.integer({ min: 1, max: maxCost })));
       const action = fc.record({
         pre: fc.array(varVal, { minLength: 0, maxLength: Math.min(3, n) }),
         eff: fc.array(varVal, { minLength: 1, maxLength: Math.min(2, n) }),

@@ -1,0 +1,211 @@
+// encodePlanning: a Task unrolled to T steps as CNF (core-1 + a step encoding + cost-adder-1),
+// with the variable map, bound assumptions and model decoding the optimizer needs.
+import type { Task } from "../ground/task.js";
+import { buildAdder } from "./adder.js";
+import { bitLength } from "./adder.js";
+import { atMostOne } from "./amo.js";
+import { CnfBuilder, type ClauseSink, type CompactClauses, type PlainCnf } from "./cnf.js";
+import { comparatorAssumptions, emitComparator } from "./comparator.js";
+import { coreTemplates, emitInitAndGoal, emitStepCore } from "./core.js";
+import { toDimacs, writeDimacsChunks } from "./dimacs.js";
+import { Layout } from "./layout.js";
+import { STEP_ENCODINGS, stepRules, type StepEncodingId } from "./step-rules.js";
+import { taskInfo } from "./task-info.js";
+
+export const COST_ENCODING = "cost-adder-1";
+
+export interface EncodeOptions {
+  encoding: StepEncodingId;
+  /** Horizon T ≥ 0: fact time points 0..T, action steps 1..T. */
+  steps: number;
+  /** Bound bits m; default: just enough for the largest possible sum (bitLength(maxSum)). */
+  costBits?: number;
+  /** Fact-id groups known to be mutually exclusive in every reachable state (redundant AMOs). */
+  mutexGroups?: readonly (readonly number[])[];
+}
+
+/** Everything needed to rebuild the identical CNF from the same Task (JSON-safe). */
+export interface EncodingParams {
+  encoding: StepEncodingId;
+  cost: typeof COST_ENCODING;
+  steps: number;
+  costBits: number;
+  /** Normalised: each group sorted ascending, groups of fewer than 2 facts dropped. */
+  mutexGroups: number[][];
+}
+
+/** Variable and clause counts, per part of the encoding. */
+export interface EncodingStats {
+  vars: number;
+  clauses: number;
+  literals: number;
+  factVars: number;
+  actionVars: number;
+  clausesByPart: Record<string, number>;
+  varsByPart: Record<string, number>;
+  fullAdders: number;
+  halfAdders: number;
+  [k: string]: unknown;
+}
+
+export interface Encoding {
+  readonly params: EncodingParams;
+  readonly cnf: CnfBuilder;
+  readonly numVars: number;
+  readonly numClauses: number;
+  readonly stats: EncodingStats;
+  /** Variable of "action a in step s" (s ∈ 1..T). */
+  actionVar(step: number, action: number): number;
+  /** Variable of "fact f at time t" (t ∈ 0..T). */
+  factVar(time: number, fact: number): number;
+  /** Sum bits of the cost circuit (literal per bit, 0 = constant false), for inspection. */
+  readonly costSum: readonly number[];
+  /** The largest cost any assignment can have: Σ over the adder's inputs of weight. */
+  readonly maxSum: number;
+  /** The largest B boundAssumptions accepts below maxSum: 2^costBits − 1. */
+  readonly maxRepresentableCost: number;
+  /**
+   * Literals to assume for "plan cost ≤ B": the comparator's enable literal and B's bits;
+   * [] when B ≥ maxSum (no constraint needed). Throws RangeError for B < 0 or B not representable.
+   */
+  boundAssumptions(B: number): number[];
+  /** Actions per step (ascending ids) from a model; step 1 first. */
+  decode(model: (v: number) => boolean): number[][];
+  /** What variable v means: fact/action coordinates or the label of its auxiliary range. */
+  describeVar(v: number): string;
+  /** `{ numVars, clauses }` (views into the store) — the SAT module's `Cnf` shape. */
+  toCnf(): PlainCnf;
+  /** Zero-terminated single array — the SAT module's `CompactCnf` shape. */
+  toCompact(): CompactClauses;
+  streamTo(sink: ClauseSink): void;
+  /** Deterministic DIMACS text (header comments name the parameters). */
+  toDimacs(): string;
+  writeDimacs(write: (chunk: string) => void): void;
+}
+
+function normaliseGroups(groups: readonly (readonly number[])[] | undefined, task: Task): number[][] {
+  const out: number[][] = [];
+  const init = new Set(task.init);
+  for (const g of groups ?? []) {
+    const sorted = [...new Set(g)].sort((x, y) => x - y);
+    for (const f of sorted) if (!Number.isInteger(f) || f < 0 || f >= task.facts.length) throw new RangeError(`encode: mutex group names fact ${f}`);
+    if (sorted.length < 2) continue;
+    if (sorted.filter((f) => init.has(f)).length > 1) throw new RangeError(`encode: mutex group [${sorted.join(",")}] has two facts true initially`);
+    out.push(sorted);
+  }
+  return out;
+}
+
+export function encodePlanning(task: Task, opts: EncodeOptions): Encoding {
+  if (!STEP_ENCODINGS.includes(opts.encoding)) throw new RangeError(`encode: unknown encoding ${String(opts.encoding)}`);
+  const T = opts.steps;
+  if (!Number.isInteger(T) || T < 0) throw new RangeError(`encode: steps must be a non-negative integer, got ${T}`);
+  const groups = normaliseGroups(opts.mutexGroups, task);
+  const info = taskInfo(task);
+  const L = new Layout(info.nF, info.nA, T);
+  const cnf = new CnfBuilder();
+  cnf.newVars((T + 1) * info.nF, "fact");
+  cnf.newVars(T * info.nA, "action");
+  const clausesByPart: Record<string, number> = {};
+  const varsByPart: Record<string, number> = {};
+  let mark = { c: 0, v: cnf.numVars };
+  const part = (name: string) => {
+    clausesByPart[name] = (clausesByPart[name] ?? 0) + cnf.numClauses - mark.c;
+    varsByPart[name] = (varsByPart[name] ?? 0) + cnf.numVars - mark.v;
+    mark = { c: cnf.numClauses, v: cnf.numVars };
+  };
+
+  emitInitAndGoal(cnf, task, L);
+  part("init+goal");
+  const tpl = coreTemplates(task, info);
+  const rules = stepRules(opts.encoding, task, info, groups);
+  for (let s = 1; s <= T; s++) {
+    emitStepCore(cnf, task, info, tpl, L, s);
+    part("steps-core");
+    rules.emitStep(cnf, L, s);
+    part("step-rules");
+  }
+  const lits: number[] = [];
+  for (let t = 1; t <= T; t++) {
+    for (const g of groups) {
+      lits.length = 0;
+      for (const f of g) lits.push(L.fact(t, f));
+      atMostOne(cnf, lits, "mutex-amo");
+    }
+  }
+  part("mutex");
+  const costGroups = rules.costGroups(cnf, L);
+  part("cost-inputs");
+  const adder = buildAdder(cnf, costGroups);
+  part("adder");
+  const width = bitLength(adder.maxSum);
+  const m = opts.costBits ?? width;
+  if (!Number.isInteger(m) || m < 0 || m > 52) throw new RangeError(`encode: costBits must be an integer in 0..52, got ${m}`);
+  const cmp = emitComparator(cnf, adder.sum, m);
+  part("comparator");
+
+  const params: EncodingParams = { encoding: opts.encoding, cost: COST_ENCODING, steps: T, costBits: m, mutexGroups: groups };
+  const maxRepresentableCost = 2 ** m - 1;
+  const stats: EncodingStats = {
+    vars: cnf.numVars,
+    clauses: cnf.numClauses,
+    literals: cnf.numLiterals,
+    factVars: (T + 1) * info.nF,
+    actionVars: T * info.nA,
+    clausesByPart,
+    varsByPart,
+    fullAdders: adder.fullAdders,
+    halfAdders: adder.halfAdders,
+    ...rules.stats,
+  };
+  const comments = [
+    `plumbline ${opts.encoding}+${COST_ENCODING} steps=${T} costBits=${m} mutexGroups=${groups.length}`,
+    `facts=${info.nF} actions=${info.nA} fact-vars=1..${L.actBase - 1} action-vars=${L.actBase}..${L.auxBase - 1}`,
+    `bound enable=${cmp.enable} bits=${cmp.boundBits.join(",") || "-"}`,
+  ];
+  return {
+    params,
+    cnf,
+    numVars: cnf.numVars,
+    numClauses: cnf.numClauses,
+    stats,
+    costSum: adder.sum,
+    maxSum: adder.maxSum,
+    maxRepresentableCost,
+    actionVar: (s, a) => {
+      if (!(s >= 1 && s <= T && a >= 0 && a < info.nA)) throw new RangeError(`encode: no action variable for step ${s}, action ${a}`);
+      return L.action(s, a);
+    },
+    factVar: (t, f) => {
+      if (!(t >= 0 && t <= T && f >= 0 && f < info.nF)) throw new RangeError(`encode: no fact variable for time ${t}, fact ${f}`);
+      return L.fact(t, f);
+    },
+    boundAssumptions(B: number): number[] {
+      if (!Number.isSafeInteger(B) || B < 0) throw new RangeError(`encode: cost bound must be a non-negative integer, got ${B}`);
+      if (B >= adder.maxSum) return [];
+      if (B > maxRepresentableCost) throw new RangeError(`encode: bound ${B} needs more than costBits=${m} bits`);
+      return comparatorAssumptions(cmp, B);
+    },
+    decode(model) {
+      const out: number[][] = [];
+      for (let s = 1; s <= T; s++) {
+        const step: number[] = [];
+        for (let a = 0; a < info.nA; a++) if (model(L.action(s, a))) step.push(a);
+        out.push(step);
+      }
+      return out;
+    },
+    describeVar(v) {
+      const d = L.describe(v);
+      if (d?.kind === "fact") return `fact ${task.facts[d.fact]} @${d.time}`;
+      if (d?.kind === "action") return `action ${task.actions[d.action].name} @step ${d.step}`;
+      const r = cnf.labelOf(v);
+      return r ? `${r.label}#${v - r.start}` : `unknown variable ${v}`;
+    },
+    toCnf: () => cnf.toCnf(),
+    toCompact: () => cnf.toCompact(),
+    streamTo: (sink) => cnf.streamTo(sink),
+    toDimacs: () => toDimacs(cnf, comments),
+    writeDimacs: (write) => writeDimacsChunks(cnf, comments, write),
+  };
+}
