@@ -1,7 +1,8 @@
-// `npm run demo`: runs the built CLI on a bundled scenario instance with zero-cost actions
-// (grounding statistics, then a replay of its committed plan); add steps to the list below.
+// `npm run demo`: runs the built CLI on a bundled scenario instance with zero-cost actions:
+// grounding statistics, solve with a certificate, audit of that certificate; add steps below.
 import { spawnSync } from "node:child_process";
-import { existsSync, readFileSync } from "node:fs";
+import { existsSync, mkdtempSync, readFileSync, rmSync } from "node:fs";
+import { tmpdir } from "node:os";
 import { dirname, join, relative } from "node:path";
 import { fileURLToPath } from "node:url";
 
@@ -11,16 +12,20 @@ const cli = join(root, "dist", "cli", "main.js");
 // The bundled instance: a harbour where the crane work is free and the cheapest delivery
 // takes more actions than the quickest one (see benchmarks/domains/harbour/README.md).
 const scenario = "harbour";
-const instance = "problem-02";
+const instance = "problem-01";
 const dir = join(root, "benchmarks", "domains", scenario);
 const domain = join(dir, "domain.pddl");
 const problem = join(dir, `${instance}.pddl`);
-const plan = join(dir, `${instance}.plan`);
+const out = mkdtempSync(join(tmpdir(), "plumbline-demo-"));
+const plan = join(out, "plan.txt");
+const certificate = join(out, "certificate");
 
-/** The demo, one CLI call per step (later: solve, audit). */
+/** The demo, one CLI call per step. */
 const steps = [
   { title: "Ground the model (facts, actions, zero-cost actions)", args: ["ground", domain, problem] },
-  { title: "Replay the committed plan on the lifted model (valid? cost?)", args: ["replay", domain, problem, plan] },
+  { title: "Solve: cheapest plan, proven optimal by SAT, with a certificate", args: ["solve", domain, problem, "--plan", plan, "--certificate", certificate] },
+  { title: "Audit the certificate from scratch (independent proof checker)", args: ["audit", certificate] },
+  { title: "Audit again, as JSON, to read the proven cost", args: ["audit", certificate, "--json"], quiet: true },
 ];
 
 if (!existsSync(cli)) {
@@ -38,17 +43,25 @@ process.stdout.write(
 );
 
 let failed = false;
+let last = null;
 for (const [i, step] of steps.entries()) {
   process.stdout.write(`\n[${i + 1}/${steps.length}] ${step.title}\n$ plumbline ${step.args.map((a) => (a.startsWith(root) ? rel(a) : a)).join(" ")}\n`);
   const r = spawnSync(process.execPath, [cli, ...step.args], { cwd: root, encoding: "utf8" });
-  process.stdout.write(r.stdout ?? "");
+  if (!step.quiet) process.stdout.write(r.stdout ?? "");
   if (r.stderr) process.stderr.write(r.stderr);
+  last = r;
   if (r.status !== 0) {
     process.stdout.write(`(step ${i + 1} exited with code ${r.status})\n`);
     failed = true;
     break;
   }
 }
+if (!failed && last) {
+  const audit = JSON.parse(last.stdout);
+  process.stdout.write(`Audit: ${audit.valid ? "valid" : "REJECTED"} — proven ${audit.claim.status} cost ${audit.cost} (recorded optimum ${record.optimalCost}).\n`);
+  if (!audit.valid || audit.cost !== record.optimalCost) failed = true;
+}
+rmSync(out, { recursive: true, force: true });
 
 process.stdout.write(
   `\nNote: plans are only as good as the model — a plan that is valid and cheapest for this model is unsafe\n` +

@@ -3,6 +3,7 @@
 import type { Command } from "commander";
 import { groundFiles } from "../../ground/index.js";
 import { parsePlan } from "../../plan/index.js";
+import { satProver } from "../../optimize/index.js";
 import { comparePlan, sideBySide, type CompareResult } from "../../search/index.js";
 import { readText } from "../../util/files.js";
 import { withCommonOptions, type CliContext } from "../context.js";
@@ -42,7 +43,9 @@ export function registerCompare(program: Command, ctx: CliContext): void {
     const deadline = deadlineFrom(opts.timeLimit);
     const steps = parsePlan(readText(planPath), planPath);
     const { model, task } = groundFiles(domain, problem);
-    const r = await comparePlan(model, task, steps, { deadline, signal: ctx.signal, planFile: planPath });
+    // the SAT optimizer proves the optimum when it can; exhaustive A* takes over otherwise
+    const prover = satProver(model, {}, { onProgress: (line) => ctx.note(line) });
+    const r = await comparePlan(model, task, steps, { deadline, signal: ctx.signal, planFile: planPath, prover });
     ctx.exitCode = EXIT[r.verdict];
     const lb = r.ours.lowerBound;
     ctx.result({

@@ -1,0 +1,345 @@
+// The auditor: trusts nothing in a certificate directory but the input files. Re-parses,
+// re-grounds, replays the plan, recomputes the horizon and the CNF, and checks the proof.
+import * as fs from "node:fs";
+import * as path from "node:path";
+import { prepareTask, type PreparedTask } from "../analyse/index.js";
+import { STEP_ENCODINGS, type StepEncodingId } from "../encode/index.js";
+import { ground, type Task } from "../ground/index.js";
+import { computeHorizon, horizonReportJson } from "../horizon/index.js";
+import { buildFormula, canonicalCnfSha256, checkerCnf, costBitsFor, EXTENSIONS, formulaId, type ExtensionId, type FormulaSpec } from "../optimize/index.js";
+import { modelFromTexts, type Model } from "../pddl/index.js";
+import { parsePlan, replayPlan } from "../plan/index.js";
+import { checkDrat } from "../proof/index.js";
+import { checkLandmarkCertificate, relaxedReachableWithout, type LandmarkRecord } from "../search/index.js";
+import { PlumblineError } from "../util/errors.js";
+import { FILES, FORMAT_VERSION, type CertificateJson } from "./format.js";
+import { sha256 } from "./write.js";
+
+export interface AuditCheck {
+  /** Stable name (tests and reports rely on it). */
+  name: string;
+  ok: boolean;
+  detail: string;
+  /** True when the check could not run because an earlier one failed. */
+  skipped?: boolean;
+}
+
+export interface AuditReport {
+  valid: boolean;
+  dir: string;
+  claim: { status: string; how: string } | null;
+  cost: number | null;
+  checks: AuditCheck[];
+  seconds: number;
+}
+
+export interface AuditOptions {
+  /** Absolute deadline for the proof check (Date.now() ms). */
+  deadline?: number;
+  signal?: AbortSignal;
+}
+
+class Checks {
+  readonly list: AuditCheck[] = [];
+  pass(name: string, detail: string): void {
+    this.list.push({ name, ok: true, detail });
+  }
+  fail(name: string, detail: string): void {
+    this.list.push({ name, ok: false, detail });
+  }
+  skip(name: string, why: string): void {
+    this.list.push({ name, ok: false, detail: `not checked: ${why}`, skipped: true });
+  }
+  check(name: string, ok: boolean, good: string, bad: string): boolean {
+    if (ok) this.pass(name, good);
+    else this.fail(name, bad);
+    return ok;
+  }
+}
+
+const isObj = (v: unknown): v is Record<string, unknown> => v !== null && typeof v === "object" && !Array.isArray(v);
+
+/** The first path where two JSON values differ, or null when they are equal. */
+export function firstDifference(a: unknown, b: unknown, at = "$"): string | null {
+  if (Array.isArray(a) || Array.isArray(b)) {
+    if (!Array.isArray(a) || !Array.isArray(b)) return `${at}: expected ${JSON.stringify(a)?.slice(0, 80)}, found ${JSON.stringify(b)?.slice(0, 80)}`;
+    if (a.length !== b.length) return `${at}: expected ${a.length} entries, found ${b.length}`;
+    for (let i = 0; i < a.length; i++) {
+      const d = firstDifference(a[i], b[i], `${at}[${i}]`);
+      if (d) return d;
+    }
+    return null;
+  }
+  if (isObj(a) || isObj(b)) {
+    if (!isObj(a) || !isObj(b)) return `${at}: expected ${JSON.stringify(a)?.slice(0, 80)}, found ${JSON.stringify(b)?.slice(0, 80)}`;
+    const keys = new Set([...Object.keys(a), ...Object.keys(b)]);
+    for (const k of [...keys].sort()) {
+      if (!(k in a)) return `${at}.${k}: not expected, found ${JSON.stringify(b[k])?.slice(0, 80)}`;
+      if (!(k in b)) return `${at}.${k}: missing (expected ${JSON.stringify(a[k])?.slice(0, 80)})`;
+      const d = firstDifference(a[k], b[k], `${at}.${k}`);
+      if (d) return d;
+    }
+    return null;
+  }
+  return Object.is(a, b) ? null : `${at}: expected ${JSON.stringify(a)}, found ${JSON.stringify(b)}`;
+}
+
+function readIn(dir: string, name: string): Buffer | null {
+  try {
+    return fs.readFileSync(path.join(dir, path.basename(name)));
+  } catch {
+    return null;
+  }
+}
+
+/** Reads certificate.json; a missing directory or unreadable JSON is a PlumblineError (exit 2). */
+export function readCertificateJson(dir: string): CertificateJson {
+  if (!fs.existsSync(dir) || !fs.statSync(dir).isDirectory()) throw new PlumblineError("io", `${dir}: no such certificate directory`);
+  const file = path.join(dir, FILES.certificate);
+  let text: string;
+  try {
+    text = fs.readFileSync(file, "utf8");
+  } catch {
+    throw new PlumblineError("io", `${file}: missing (not a certificate directory?)`);
+  }
+  let v: unknown;
+  try {
+    v = JSON.parse(text);
+  } catch (e) {
+    throw new PlumblineError("parse", `${file}: not valid JSON: ${(e as Error).message}`);
+  }
+  if (!isObj(v)) throw new PlumblineError("parse", `${file}: expected one JSON object`);
+  return v as unknown as CertificateJson;
+}
+
+const CLAIMS: Record<string, string[]> = { optimal: ["horizon-unsat", "lower-bound"], unsolvable: ["horizon-unsat", "relaxed-unreachable"] };
+
+/** Audits the certificate in `dir`. Throws PlumblineError only when the directory or its JSON is unreadable. */
+export function auditCertificate(dir: string, opts: AuditOptions = {}): AuditReport {
+  const t0 = performance.now();
+  const cert = readCertificateJson(dir);
+  const c = new Checks();
+  const report = (): AuditReport => ({
+    valid: c.list.length > 0 && c.list.every((x) => x.ok),
+    dir,
+    claim: isObj(cert.claim) ? { status: String(cert.claim.status), how: String(cert.claim.how) } : null,
+    cost: isObj(cert.plan) && typeof cert.plan.cost === "number" ? cert.plan.cost : null,
+    checks: c.list,
+    seconds: (performance.now() - t0) / 1000,
+  });
+
+  // --- the record itself -------------------------------------------------------------------
+  const claimOk =
+    cert.formatVersion === FORMAT_VERSION && isObj(cert.claim) && CLAIMS[cert.claim.status]?.includes(cert.claim.how) === true && (cert.claim.status === "optimal") === isObj(cert.plan);
+  c.check(
+    "format",
+    claimOk,
+    `format version ${FORMAT_VERSION}, claim ${cert.claim?.status} by ${cert.claim?.how}`,
+    cert.formatVersion !== FORMAT_VERSION
+      ? `format version ${JSON.stringify(cert.formatVersion)} is not ${FORMAT_VERSION}`
+      : `the claim ${JSON.stringify(cert.claim)} is not one of: optimal by horizon-unsat or lower-bound (with a plan), unsolvable by horizon-unsat or relaxed-unreachable (without one)`,
+  );
+  if (!claimOk) return report();
+  const how = cert.claim.how;
+
+  // --- inputs ------------------------------------------------------------------------------
+  const domainBytes = readIn(dir, FILES.domain);
+  const problemBytes = readIn(dir, FILES.problem);
+  if (!domainBytes || !problemBytes) {
+    c.fail("input-files", `missing ${!domainBytes ? FILES.domain : FILES.problem}`);
+    return report();
+  }
+  const dh = sha256(domainBytes);
+  const ph = sha256(problemBytes);
+  c.check(
+    "input-hashes",
+    dh === cert.inputs?.domain?.sha256 && ph === cert.inputs?.problem?.sha256,
+    "domain and problem files match their recorded SHA-256",
+    dh !== cert.inputs?.domain?.sha256 ? `${FILES.domain} has SHA-256 ${dh}, the certificate records ${cert.inputs?.domain?.sha256}` : `${FILES.problem} has SHA-256 ${ph}, the certificate records ${cert.inputs?.problem?.sha256}`,
+  );
+  let model: Model;
+  let task: Task;
+  try {
+    model = modelFromTexts(domainBytes.toString("utf8"), path.join(dir, FILES.domain), problemBytes.toString("utf8"), path.join(dir, FILES.problem));
+    task = ground(model, { relevance: cert.grounding?.relevance === true });
+    c.pass("ground", `${task.facts.length} facts, ${task.actions.length} actions (relevance pruning ${cert.grounding?.relevance === true ? "on" : "off"})`);
+  } catch (e) {
+    c.fail("ground", `the inputs do not parse or ground: ${(e as Error).message}`);
+    return report();
+  }
+
+  // --- the plan ----------------------------------------------------------------------------
+  if (cert.claim.status === "optimal") auditPlan(c, dir, cert, model);
+
+  // --- the proof of the claim --------------------------------------------------------------
+  if (how === "relaxed-unreachable") {
+    c.check("relaxed-unreachable", !relaxedReachableWithout(task, new Set()), "the goal is unreachable even ignoring deletes", "the goal is reachable ignoring deletes: the claim is not proven this way");
+  } else if (how === "lower-bound") {
+    auditLowerBound(c, dir, cert, task);
+  } else {
+    auditHorizonUnsat(c, dir, cert, task, opts);
+  }
+  return report();
+}
+
+function auditPlan(c: Checks, dir: string, cert: CertificateJson, model: Model): void {
+  const plan = cert.plan!;
+  const bytes = readIn(dir, FILES.plan);
+  if (!bytes) {
+    c.fail("plan-replay", `missing ${FILES.plan}`);
+    return;
+  }
+  const h = sha256(bytes);
+  c.check("plan-hash", h === plan.sha256, `${FILES.plan} matches its recorded SHA-256`, `${FILES.plan} has SHA-256 ${h}, the certificate records ${plan.sha256}`);
+  let r;
+  try {
+    r = replayPlan(model, parsePlan(bytes.toString("utf8"), FILES.plan), FILES.plan);
+  } catch (e) {
+    c.fail("plan-replay", `${FILES.plan} cannot be read as a plan: ${(e as Error).message}`);
+    return;
+  }
+  if (!c.check("plan-replay", r.valid, `the plan replays on the lifted model and reaches the goal (${r.length} steps)`, `the plan fails: ${r.error?.message ?? "invalid"}`)) {
+    c.skip("plan-cost", "the plan does not replay");
+    return;
+  }
+  c.check(
+    "plan-cost",
+    r.cost === plan.cost && r.length === plan.length,
+    `replayed cost ${r.cost} and length ${r.length} equal the claim`,
+    `the replayed plan costs ${r.cost} with ${r.length} steps; the certificate claims cost ${plan.cost} with ${plan.length} steps`,
+  );
+}
+
+function auditLowerBound(c: Checks, dir: string, cert: CertificateJson, task: Task): void {
+  const lb = cert.lowerBound;
+  const bytes = readIn(dir, FILES.landmarks);
+  if (!isObj(lb) || !bytes) {
+    c.fail("landmark-check", `missing ${!bytes ? FILES.landmarks : "the lowerBound record"}`);
+    return;
+  }
+  const h = sha256(bytes);
+  c.check("landmarks-hash", h === lb.sha256, `${FILES.landmarks} matches its recorded SHA-256`, `${FILES.landmarks} has SHA-256 ${h}, the certificate records ${lb.sha256}`);
+  let rec: LandmarkRecord;
+  try {
+    rec = JSON.parse(bytes.toString("utf8")) as LandmarkRecord;
+    if (!isObj(rec) || typeof rec.bound !== "number" || !Array.isArray(rec.landmarks)) throw new Error("expected { bound, landmarks }");
+  } catch (e) {
+    c.fail("landmark-check", `${FILES.landmarks} is not a landmark record: ${(e as Error).message}`);
+    return;
+  }
+  let v;
+  try {
+    v = checkLandmarkCertificate(task, rec);
+  } catch (e) {
+    v = { valid: false, reason: (e as Error).message };
+  }
+  c.check("landmark-check", v.valid, `${rec.landmarks.length} landmarks re-checked: every plan costs at least ${rec.bound}`, `the landmark record is not valid: ${v.reason ?? "rejected"}`);
+  const cost = cert.plan!.cost;
+  c.check(
+    "lower-bound-equals-cost",
+    rec.bound === cost && lb.bound === cost,
+    `the lower bound ${rec.bound} equals the plan's cost`,
+    `the lower bound ${rec.bound} (recorded ${lb.bound}) does not equal the plan's cost ${cost}`,
+  );
+}
+
+function auditHorizonUnsat(c: Checks, dir: string, cert: CertificateJson, task: Task, opts: AuditOptions): void {
+  const optimal = cert.claim.status === "optimal";
+  const cost = optimal ? cert.plan!.cost : null;
+  const hz = cert.horizon;
+  const enc = cert.encoding;
+  if (!isObj(hz) || !isObj(enc)) {
+    c.fail("horizon-derivation", "the certificate has no horizon or encoding record");
+    return;
+  }
+  // the upper cost the horizon was computed for: ≥ the claimed cost (thresholds are monotone in C)
+  const upperRaw = hz.upperCost;
+  const upper = upperRaw === "Infinity" ? Infinity : typeof upperRaw === "number" ? upperRaw : NaN;
+  const upperOk = optimal ? Number.isSafeInteger(upper) && upper >= cost! : upper === Infinity;
+  c.check(
+    "horizon-upper-cost",
+    upperOk,
+    optimal ? `the horizon was computed for cost < ${upper}, and ${upper} ≥ the claimed cost ${cost}` : "the horizon bounds plans of any cost (plain reachability)",
+    optimal ? `the horizon's upper cost ${JSON.stringify(upperRaw)} is not an integer ≥ the claimed cost ${cost}` : `an unsolvability claim needs the horizon for any cost ("Infinity"), found ${JSON.stringify(upperRaw)}`,
+  );
+  if (!upperOk) {
+    c.skip("horizon-derivation", "no valid upper cost");
+    return;
+  }
+  const recomputed = computeHorizon(task, upper);
+  const fresh = horizonReportJson(recomputed);
+  const diff = firstDifference(fresh, hz);
+  c.check("horizon-derivation", diff === null, `recomputed: horizon ${fresh.horizon} (${recomputed.winner}), every number of every method equal`, `the recorded derivation differs from the recomputed one at ${diff}`);
+  const H = recomputed.horizon;
+  if (!Number.isSafeInteger(H)) {
+    c.fail("encoding", `the recomputed horizon ${recomputed.horizonText} cannot be unrolled`);
+    return;
+  }
+
+  // the formula, from trusted values only: recomputed horizon and mutex groups, bound cost − 1
+  let prepared: PreparedTask;
+  try {
+    prepared = prepareTask(task);
+  } catch (e) {
+    c.fail("encoding", `analysis failed: ${(e as Error).message}`);
+    return;
+  }
+  const groups = prepared.variables.variables.filter((v) => v.facts.length > 1).map((v) => [...v.facts]);
+  const step = enc.step as StepEncodingId;
+  const exts = Array.isArray(enc.extensions) ? (enc.extensions as ExtensionId[]) : [];
+  const stepOk = STEP_ENCODINGS.includes(step) && enc.cost === "cost-adder-1";
+  const extOk = exts.every((x) => EXTENSIONS.includes(x)) && new Set(exts).size === exts.length;
+  const spec: FormulaSpec = { encoding: step, steps: H, costBits: costBitsFor(upper), mutexGroups: groups, extensions: exts };
+  const bound = optimal ? cost! - 1 : null;
+  const problems: string[] = [];
+  if (!stepOk) problems.push(`unknown step or cost encoding ${JSON.stringify(enc.step)} / ${JSON.stringify(enc.cost)}`);
+  if (!extOk) problems.push(`unknown or repeated extensions ${JSON.stringify(enc.extensions)}`);
+  if (stepOk && extOk && enc.id !== formulaId(spec)) problems.push(`id ${JSON.stringify(enc.id)} is not ${formulaId(spec)}`);
+  const params: Record<string, unknown> = isObj(enc.params) ? enc.params : {};
+  if (params.steps !== H) problems.push(`steps ${JSON.stringify(params.steps)} is not the recomputed horizon ${H}`);
+  if (params.costBits !== spec.costBits) problems.push(`costBits ${JSON.stringify(params.costBits)} is not ${spec.costBits}`);
+  const gd = firstDifference(groups, params.mutexGroups, "mutexGroups");
+  if (gd) problems.push(`mutex groups differ from the recomputed ones (${gd})`);
+  if (enc.bound !== bound) problems.push(`the final query's bound ${JSON.stringify(enc.bound)} is not ${bound === null ? "null (any plan)" : `the claimed cost − 1 = ${bound}`}`);
+  if (!c.check("encoding", problems.length === 0, `${formulaId(spec)}, ${H} steps, ${spec.costBits} bound bits, ${groups.length} mutex groups, query ${bound === null ? "any plan" : `cost ≤ ${bound}`}`, problems.join("; "))) {
+    if (!stepOk || !extOk) {
+      c.skip("cnf-hash", "unknown encoding");
+      c.skip("proof-check", "unknown encoding");
+      return;
+    }
+  }
+
+  let formula;
+  let units: number[];
+  try {
+    formula = buildFormula(prepared.task, spec);
+    units = formula.boundUnits(bound ?? Infinity);
+  } catch (e) {
+    c.fail("cnf-hash", `the formula cannot be rebuilt: ${(e as Error).message}`);
+    return;
+  }
+  const ud = firstDifference(units, enc.boundUnits, "boundUnits");
+  c.check("bound-units", ud === null, `${units.length} bound literals as recorded`, `recorded bound literals differ: ${ud}`);
+  const hash = canonicalCnfSha256(formula, units);
+  c.check("cnf-hash", hash === cert.cnf?.sha256, `rebuilt CNF (${formula.numVars} variables, ${formula.numClauses + units.length} clauses) has the recorded SHA-256`, `the rebuilt CNF has SHA-256 ${hash}, the certificate records ${cert.cnf?.sha256}`);
+
+  // the proof: its bytes as recorded, then checked against the rebuilt CNF by src/proof
+  const pr = cert.proof;
+  const proofBytes = readIn(dir, FILES.proof);
+  if (!isObj(pr) || !proofBytes) {
+    c.fail("proof-hash", `missing ${!proofBytes ? FILES.proof : "the proof record"}`);
+    c.skip("proof-check", "no proof");
+    return;
+  }
+  const phash = sha256(proofBytes);
+  c.check("proof-hash", phash === pr.sha256, `${FILES.proof} matches its recorded SHA-256 (${proofBytes.length} bytes)`, `${FILES.proof} has SHA-256 ${phash}, the certificate records ${pr.sha256}`);
+  let result;
+  try {
+    result = checkDrat(checkerCnf(formula, units), proofBytes, { deadline: opts.deadline, signal: opts.signal });
+  } catch (e) {
+    c.fail("proof-check", `the proof could not be checked: ${(e as Error).message}`);
+    return;
+  }
+  const why = result.failedLemma ? `lemma ${result.failedLemma.index} fails` : (result.reason ?? "rejected");
+  c.check("proof-check", result.valid, `DRAT proof valid: the CNF is unsatisfiable (${bound === null ? "no plan at all" : `no plan of cost ≤ ${bound}`} within ${H} steps)`, `the DRAT proof is rejected: ${why}${result.reason && result.failedLemma ? ` (${result.reason})` : ""}`);
+}

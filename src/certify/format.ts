@@ -1,0 +1,56 @@
+// The certificate's layout (DESIGN "Certificates"): file names, the certificate.json shape
+// and its version — shared by the writer and the auditor so that they cannot drift apart.
+
+export const FORMAT_VERSION = 1;
+export const CERTIFICATE_KIND = "plumbline-certificate";
+
+export const FILES = {
+  certificate: "certificate.json",
+  domain: "domain.pddl",
+  problem: "problem.pddl",
+  plan: "plan.txt",
+  proof: "proof.drat.gz",
+  landmarks: "landmarks.json",
+} as const;
+
+export const CAUTION = "A proof of optimality is about the model as written: a plan is only as good as the model. Review the model before acting on a schedule.";
+
+/** How the certificate's CNF is serialised before hashing (so anyone can reproduce the hash). */
+export const CNF_FORM =
+  "canonical DIMACS: 'p cnf V C' line, then one clause per line ('l1 l2 ... 0'): the encoder's clauses in order, the extensions' clauses, then one unit clause per bound literal; no comments, '\\n' line ends";
+
+export interface FileRecord {
+  file: string;
+  sha256: string;
+}
+
+export interface CertificateJson {
+  formatVersion: number;
+  kind: string;
+  toolVersion: string;
+  created: string;
+  inputs: { domain: FileRecord & { name: string }; problem: FileRecord & { name: string } };
+  claim: { status: "optimal" | "unsolvable"; how: "horizon-unsat" | "lower-bound" | "relaxed-unreachable" };
+  plan: (FileRecord & { cost: number; length: number }) | null;
+  grounding: { relevance: boolean; facts: number; actions: number };
+  reduction: { facts: number; actions: number; variables: number };
+  /** horizon-unsat only: the horizon report (every method's derivation) for `upperCost`. */
+  horizon: Record<string, unknown> | null;
+  /** horizon-unsat only. */
+  encoding: {
+    id: string;
+    step: string;
+    cost: string;
+    extensions: string[];
+    params: { steps: number; costBits: number; mutexGroups: number[][] };
+    /** The final query: "plan cost ≤ bound" (null: any plan at all). */
+    bound: number | null;
+    boundUnits: number[];
+  } | null;
+  cnf: { sha256: string; variables: number; clauses: number; form: string } | null;
+  proof: (FileRecord & { format: "drat-binary" | "drat-text"; compression: "gzip"; bytes: number; uncompressedBytes: number; engine: string }) | null;
+  /** lower-bound only. */
+  lowerBound: (FileRecord & { method: "landmark-cut"; bound: number }) | null;
+  timeline: Array<{ seconds: number; kind: string; upper: number | null; lower: number | string; detail?: string }>;
+  caution: string;
+}

@@ -1,0 +1,117 @@
+// Writes a certificate directory from the optimizer's material: inputs, plan, claim, horizon
+// derivation, formula parameters and CNF hash, gzipped DRAT proof or landmark record — atomically.
+import { createHash } from "node:crypto";
+import * as fs from "node:fs";
+import * as path from "node:path";
+import { pipeline } from "node:stream/promises";
+import { createGzip } from "node:zlib";
+import { horizonReportJson } from "../horizon/index.js";
+import { canonicalCnfSha256, formulaId, type CertificateMaterial } from "../optimize/index.js";
+import { PlumblineError } from "../util/errors.js";
+import { writeDirAtomic } from "../util/files.js";
+import { VERSION } from "../util/version.js";
+import { CAUTION, CERTIFICATE_KIND, CNF_FORM, FILES, FORMAT_VERSION, type CertificateJson } from "./format.js";
+
+export function sha256(data: string | Uint8Array): string {
+  return createHash("sha256").update(data).digest("hex");
+}
+
+export function sha256File(file: string): string {
+  const h = createHash("sha256");
+  const fd = fs.openSync(file, "r");
+  try {
+    const buf = Buffer.allocUnsafe(1 << 20);
+    for (;;) {
+      const n = fs.readSync(fd, buf, 0, buf.length, null);
+      if (n === 0) break;
+      h.update(buf.subarray(0, n));
+    }
+  } finally {
+    fs.closeSync(fd);
+  }
+  return h.digest("hex");
+}
+
+/** JSON numbers for finite values, "Infinity" otherwise (certificate.json stays plain JSON). */
+const jsonNum = (x: number): number | string => (Number.isFinite(x) ? x : "Infinity");
+
+export interface WrittenCertificate {
+  dir: string;
+  json: CertificateJson;
+}
+
+/**
+ * Writes the certificate for `m` into `dir` (replacing an existing directory only once the
+ * new one is complete). Only `optimal` and `unsolvable` claims have certificates.
+ */
+export async function writeCertificate(dir: string, m: CertificateMaterial): Promise<WrittenCertificate> {
+  const { model, task, prepared, claim } = m;
+  if (claim.status === "optimal" && m.plan === null) throw new Error("certify: an optimality certificate needs a plan");
+  if (claim.how === "horizon-unsat" && (!m.formula || !m.proof || !m.horizon)) throw new Error("certify: a horizon-unsat certificate needs a formula, a horizon and a proof");
+  const json: CertificateJson = {
+    formatVersion: FORMAT_VERSION,
+    kind: CERTIFICATE_KIND,
+    toolVersion: VERSION,
+    created: new Date().toISOString(),
+    inputs: {
+      domain: { file: FILES.domain, sha256: sha256(model.domainText), name: model.domain.name },
+      problem: { file: FILES.problem, sha256: sha256(model.problemText), name: model.problem.name },
+    },
+    claim,
+    plan: m.plan ? { file: FILES.plan, sha256: sha256(m.plan.text), cost: m.plan.cost, length: m.plan.length } : null,
+    grounding: { relevance: m.groundOptions.relevance ?? false, facts: task.facts.length, actions: task.actions.length },
+    reduction: { facts: prepared.task.facts.length, actions: prepared.task.actions.length, variables: prepared.variables.variables.length },
+    horizon: null,
+    encoding: null,
+    cnf: null,
+    proof: null,
+    lowerBound: null,
+    timeline: m.timeline.map((e) => ({ ...e, lower: jsonNum(e.lower) })),
+    caution: CAUTION,
+  };
+  let landmarksText: string | null = null;
+  if (claim.how === "horizon-unsat") {
+    const f = m.formula!;
+    json.horizon = horizonReportJson(m.horizon!);
+    json.encoding = {
+      id: formulaId(f.spec),
+      step: f.spec.encoding,
+      cost: f.params.cost,
+      extensions: [...f.spec.extensions],
+      params: { steps: f.spec.steps, costBits: f.spec.costBits, mutexGroups: f.params.mutexGroups },
+      bound: m.bound,
+      boundUnits: [...m.units],
+    };
+    json.cnf = { sha256: canonicalCnfSha256(f, m.units), variables: f.numVars, clauses: f.numClauses + m.units.length, form: CNF_FORM };
+  } else if (claim.how === "lower-bound") {
+    const rec = m.landmarks ?? { bound: 0, landmarks: [] };
+    landmarksText = JSON.stringify(rec, null, 1) + "\n";
+    json.lowerBound = { file: FILES.landmarks, sha256: sha256(landmarksText), method: "landmark-cut", bound: rec.bound };
+  }
+
+  await writeDirAtomic(dir, async (tmp) => {
+    fs.writeFileSync(path.join(tmp, FILES.domain), model.domainText);
+    fs.writeFileSync(path.join(tmp, FILES.problem), model.problemText);
+    if (m.plan) fs.writeFileSync(path.join(tmp, FILES.plan), m.plan.text);
+    if (landmarksText !== null) fs.writeFileSync(path.join(tmp, FILES.landmarks), landmarksText);
+    if (m.proof) {
+      const target = path.join(tmp, FILES.proof);
+      try {
+        await pipeline(fs.createReadStream(m.proof.file), createGzip({ level: 6 }), fs.createWriteStream(target));
+      } catch (e) {
+        throw new PlumblineError("io", `cannot write the proof into ${dir}: ${(e as Error).message}`);
+      }
+      json.proof = {
+        file: FILES.proof,
+        sha256: sha256File(target),
+        format: m.proof.format === "binary" ? "drat-binary" : "drat-text",
+        compression: "gzip",
+        bytes: fs.statSync(target).size,
+        uncompressedBytes: m.proof.bytes,
+        engine: m.proof.engine,
+      };
+    }
+    fs.writeFileSync(path.join(tmp, FILES.certificate), JSON.stringify(json, null, 2) + "\n");
+  });
+  return { dir, json };
+}

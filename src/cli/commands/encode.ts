@@ -1,0 +1,91 @@
+// `plumbline encode DOMAIN PROBLEM --steps T`: the planning CNF the optimizer would solve, as
+// DIMACS on stdout or in a file. Wiring only; the work is in src/optimize/formula.ts and src/encode.
+import * as fs from "node:fs";
+import { Option, type Command } from "commander";
+import { prepareTask } from "../../analyse/index.js";
+import { STEP_ENCODINGS, type StepEncodingId } from "../../encode/index.js";
+import { groundFiles } from "../../ground/index.js";
+import { buildFormula, costBitsFor, EXTENSIONS, formulaId, OPTIMIZE_GROUNDING, writeCanonicalDimacs, type FormulaSpec } from "../../optimize/index.js";
+import { PlumblineError } from "../../util/errors.js";
+import { tempNameFor } from "../../util/files.js";
+import { withCommonOptions, type CliContext } from "../context.js";
+
+interface EncodeCliOptions {
+  json?: boolean;
+  quiet?: boolean;
+  verbose?: boolean;
+  steps?: string;
+  costBelow?: string;
+  encoding?: StepEncodingId;
+  output?: string;
+  plain?: boolean;
+}
+
+function wholeNumber(name: string, v: string | undefined, min: number): number | undefined {
+  if (v === undefined) return undefined;
+  const x = Number(v);
+  if (!Number.isSafeInteger(x) || x < min) throw new PlumblineError("usage", `${name} expects a whole number ≥ ${min}, found '${v}'`);
+  return x;
+}
+
+export function registerEncode(program: Command, ctx: CliContext): void {
+  withCommonOptions(
+    program
+      .command("encode")
+      .description(
+        "write the planning CNF (DIMACS) the optimizer builds: the task after goal-relevance pruning and analysis, unrolled to T steps,\n" +
+          "with the cost adder; with --cost-below C, unit clauses ask for a plan of cost ≤ C − 1. Satisfiable exactly when such a plan\n" +
+          "of at most T steps exists. Comment lines name the parameters and where the fact and action variables are.",
+      )
+      .argument("<domain>", "PDDL domain file")
+      .argument("<problem>", "PDDL problem file")
+      .requiredOption("--steps <T>", "horizon: number of steps (every plan of at most T actions fits)")
+      .option("--cost-below <C>", "add unit clauses for 'plan cost ≤ C − 1' (without it: any plan within T steps)")
+      .addOption(new Option("--encoding <id>", "step encoding: forall-1 (default), seq-1 or forall-2").choices([...STEP_ENCODINGS]).default("forall-1"))
+      .option("--plain", "only the encoder's clauses, without the optimizer's extra clause families (empty steps last)")
+      .option("-o, --output <file>", "write the CNF to this file (default: stdout)"),
+  ).action((domain: string, problem: string, opts: EncodeCliOptions) => {
+    ctx.configure(opts);
+    const steps = wholeNumber("--steps", opts.steps, 0)!;
+    const below = wholeNumber("--cost-below", opts.costBelow, 1);
+    const { task } = groundFiles(domain, problem, OPTIMIZE_GROUNDING);
+    const prepared = prepareTask(task);
+    const spec: FormulaSpec = {
+      encoding: opts.encoding ?? "forall-1",
+      steps,
+      costBits: below === undefined ? 0 : costBitsFor(below),
+      mutexGroups: prepared.variables.variables.filter((v) => v.facts.length > 1).map((v) => [...v.facts]),
+      extensions: opts.plain ? [] : [...EXTENSIONS],
+    };
+    const f = buildFormula(prepared.task, spec);
+    const units = f.boundUnits(below === undefined ? Infinity : below - 1);
+    const comments = [
+      `plumbline ${formulaId(spec)} steps=${steps} costBits=${spec.costBits} mutexGroups=${spec.mutexGroups.length}${below === undefined ? "" : ` query: cost <= ${below - 1}`}`,
+      `task after pruning: ${prepared.task.facts.length} facts, ${prepared.task.actions.length} actions; fact f at time t = 1 + t*${prepared.task.facts.length} + f, action a in step s = ${1 + (steps + 1) * prepared.task.facts.length} + (s-1)*${prepared.task.actions.length} + a`,
+    ];
+    const header = comments.map((c) => `c ${c}\n`).join("");
+    if (opts.output) {
+      const tmp = tempNameFor(opts.output);
+      const fd = fs.openSync(tmp, "w");
+      try {
+        fs.writeSync(fd, header);
+        writeCanonicalDimacs(f, units, (s) => fs.writeSync(fd, s));
+        fs.closeSync(fd);
+        fs.renameSync(tmp, opts.output);
+      } catch (e) {
+        try {
+          fs.closeSync(fd);
+        } catch {
+          /* already closed */
+        }
+        fs.rmSync(tmp, { force: true });
+        throw new PlumblineError("io", `cannot write ${opts.output}: ${(e as Error).message}`);
+      }
+    } else if (!ctx.json) {
+      ctx.io.stdout.write(header);
+      writeCanonicalDimacs(f, units, (s) => ctx.io.stdout.write(s));
+    }
+    ctx.note(`${f.numVars} variables, ${f.numClauses + units.length} clauses${opts.output ? ` written to ${opts.output}` : ""}`);
+    ctx.result({ encoding: formulaId(spec), steps, costBelow: below ?? null, variables: f.numVars, clauses: f.numClauses + units.length, output: opts.output ?? null, stats: f.encoding.stats });
+  });
+}

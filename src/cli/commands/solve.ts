@@ -1,0 +1,127 @@
+// `plumbline solve DOMAIN PROBLEM`: a cost-optimal plan with its proof, optionally a plan file
+// and a certificate directory. Wiring only; the work is in src/optimize and src/certify.
+import { Option, type Command } from "commander";
+import { dratChecker, writeCertificate } from "../../certify/index.js";
+import { STEP_ENCODINGS, type StepEncodingId } from "../../encode/index.js";
+import { disposeOutcome, optimizeFiles, type OptimizeOutcome } from "../../optimize/index.js";
+import { PlumblineError } from "../../util/errors.js";
+import { writeFileAtomic } from "../../util/files.js";
+import { withCommonOptions, type CliContext } from "../context.js";
+
+interface SolveCliOptions {
+  json?: boolean;
+  quiet?: boolean;
+  verbose?: boolean;
+  plan?: string;
+  certificate?: string;
+  timeLimit?: string;
+  memoryLimit?: string;
+  encoding?: StepEncodingId;
+  sat?: string;
+}
+
+const CAUTION = "(plans are only as good as the model: an optimal plan of an incomplete model can still be unsafe in the real world)";
+
+function positive(name: string, v: string | undefined): number | undefined {
+  if (v === undefined) return undefined;
+  const x = Number(v);
+  if (!Number.isFinite(x) || x <= 0) throw new PlumblineError("usage", `${name} expects a positive number, found '${v}'`);
+  return x;
+}
+
+const num = (x: number): number | string => (Number.isFinite(x) ? x : "Infinity");
+
+function headline(o: OptimizeOutcome): string {
+  switch (o.status) {
+    case "optimal":
+      return `status: optimal — cost ${o.cost} (${o.plan!.length} actions), proven by ${o.provedBy}`;
+    case "unsolvable":
+      return `status: unsolvable — no plan exists, proven by ${o.provedBy}`;
+    case "feasible":
+      return `status: feasible — cost ${o.cost}, not proven optimal (${o.stopReason}); the optimum lies in [${num(o.lowerBound)}, ${o.cost}]`;
+    case "unknown":
+      return `status: unknown — no plan found (${o.stopReason}); every plan costs at least ${num(o.lowerBound)}`;
+  }
+}
+
+export function registerSolve(program: Command, ctx: CliContext): void {
+  withCommonOptions(
+    program
+      .command("solve")
+      .description(
+        "find a cost-optimal plan and prove it: SAT queries 'is there a cheaper plan?' at a proven completeness threshold until one is\n" +
+          "unsatisfiable (DRAT proof), or a landmark lower bound equal to the plan's cost. Status optimal, feasible (plan, no proof),\n" +
+          "unsolvable (proven) or unknown. Exit 0 optimal/unsolvable, 2 bad input, 3 limit reached (the best plan is still written).",
+      )
+      .argument("<domain>", "PDDL domain file")
+      .argument("<problem>", "PDDL problem file")
+      .option("--plan <file>", "write the best plan found to this file (also when a limit stops the run)")
+      .option("--certificate <dir>", "write a certificate directory (re-checkable with 'plumbline audit') when optimality or unsolvability is proven")
+      .option("--time-limit <seconds>", "stop after this many seconds with the best plan so far (status feasible or unknown, exit 3)")
+      .option("--memory-limit <MB>", "stop when resident memory passes this many MB, and build no formula estimated to need more")
+      .addOption(new Option("--encoding <id>", "step encoding of the proof formula: forall-1 (parallel steps, default), seq-1 (one action per step) or forall-2").choices([...STEP_ENCODINGS]).default("forall-1"))
+      .option("--sat <solver>", "builtin (default), or external:CMD — a DIMACS solver run once per query ('{cnf}' and '{proof}' stand for the files); its DRAT proof is checked, and without one the final query is re-run with the built-in solver", "builtin"),
+  ).action(async (domain: string, problem: string, opts: SolveCliOptions) => {
+    ctx.configure(opts);
+    const timeLimit = positive("--time-limit", opts.timeLimit);
+    const memoryLimitMb = positive("--memory-limit", opts.memoryLimit);
+    const sat = opts.sat ?? "builtin";
+    if (sat !== "builtin" && !(sat.startsWith("external:") && sat.length > "external:".length)) throw new PlumblineError("usage", `--sat expects builtin or external:CMD, found '${sat}'`);
+    const out = await optimizeFiles(domain, problem, {
+      encoding: opts.encoding,
+      sat,
+      timeLimit,
+      memoryLimitMb,
+      signal: ctx.signal,
+      onProgress: (line) => ctx.note(line),
+      proofChecker: dratChecker,
+    });
+    try {
+      if (opts.plan && out.plan) writeFileAtomic(opts.plan, out.plan.text);
+      let certificate: string | null = null;
+      if (opts.certificate) {
+        if (out.certificate) {
+          await writeCertificate(opts.certificate, out.certificate);
+          certificate = opts.certificate;
+        } else ctx.note(`no certificate written: ${out.status === "unsolvable" ? "this unsolvability proof cannot be certified" : "optimality was not proven"}`);
+      }
+      ctx.exitCode = out.status === "optimal" || out.status === "unsolvable" ? 0 : 3;
+      ctx.result({
+        status: out.status,
+        cost: out.cost,
+        lowerBound: num(out.lowerBound),
+        gap: out.cost !== null && Number.isFinite(out.lowerBound) ? out.cost - out.lowerBound : null,
+        length: out.plan?.length ?? null,
+        plan: out.plan?.names ?? null,
+        how: out.how,
+        provedBy: out.provedBy,
+        stopReason: out.stopReason,
+        horizon: out.horizon,
+        horizonMethod: out.horizonWinner,
+        encoding: out.encoding,
+        proof: out.proof ? { kind: "drat", file: certificate ? `${certificate}/proof.drat.gz` : null, bytes: out.proof.bytes, format: out.proof.format, engine: out.proof.engine } : out.how === "lower-bound" ? { kind: "landmarks", file: certificate ? `${certificate}/landmarks.json` : null, bytes: null } : null,
+        certificate,
+        planFile: opts.plan && out.plan ? opts.plan : null,
+        seconds: out.seconds,
+        timeToFirstPlan: out.timeToFirstPlan,
+        timeToProof: out.timeToProof,
+        timeline: out.timeline.map((e) => ({ ...e, lower: num(e.lower) })),
+        satCalls: out.satCalls,
+        conflicts: out.conflicts,
+        variables: out.variables,
+        clauses: out.clauses,
+        peakMemoryBytes: out.peakRssBytes,
+        notes: out.notes,
+      });
+      const lines = [headline(out)];
+      if (out.plan) lines.push("", ...out.plan.names, `; cost = ${out.cost}`);
+      if (out.horizon !== null && out.how !== "lower-bound") lines.push("", `horizon: ${out.horizon}${out.horizonWinner ? ` (${out.horizonWinner} bound)` : ""}${out.status === "feasible" || out.status === "unknown" ? " — what a proof would need" : ""}`);
+      for (const n of out.notes) lines.push(`note: ${n}`);
+      if (certificate) lines.push(`certificate written to ${certificate} (check it with: plumbline audit ${certificate})`);
+      lines.push("", CAUTION);
+      ctx.out(lines.join("\n"));
+    } finally {
+      disposeOutcome(out);
+    }
+  });
+}

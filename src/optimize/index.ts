@@ -1,0 +1,34 @@
+// The optimize stage's public API: find a cost-optimal plan and prove it (SAT at a
+// completeness threshold, or a matching lower bound), and the formula a certificate names.
+import { groundFiles, type GroundOptions } from "../ground/index.js";
+import { optimize } from "./driver.js";
+import type { OptimizeOptions, OptimizeOutcome } from "./types.js";
+
+export { optimize, disposeOutcome } from "./driver.js";
+export { Budget, type StopReason } from "./budget.js";
+export {
+  buildFormula,
+  canonicalCnfSha256,
+  checkerCnf,
+  costBitsFor,
+  formulaId,
+  writeCanonicalDimacs,
+  EXTENSIONS,
+  type ExtensionId,
+  type Formula,
+  type FormulaSpec,
+} from "./formula.js";
+export { estimateFormula, type SizeEstimate } from "./estimate.js";
+export { checkPlan, dropRedundant, toGroundIds, InternalError, type CheckedPlan } from "./plan-check.js";
+export { satProver } from "./prover.js";
+export type { ProofFile, ProofChecker } from "./sat-session.js";
+export type { OptimizeOptions, OptimizeOutcome, OutcomeStatus, ProofHow, TimelineEvent, CertificateMaterial } from "./types.js";
+
+/** The grounding options the optimizer uses (recorded in certificates, reused by audits). */
+export const OPTIMIZE_GROUNDING: Required<GroundOptions> = { relevance: true };
+
+/** Parses, grounds (goal-relevance pruning on) and optimizes two PDDL files. */
+export async function optimizeFiles(domainPath: string, problemPath: string, opts: OptimizeOptions = {}): Promise<OptimizeOutcome> {
+  const { model, task } = groundFiles(domainPath, problemPath, OPTIMIZE_GROUNDING);
+  return optimize(model, task, OPTIMIZE_GROUNDING, opts);
+}

@@ -1,0 +1,108 @@
+// What the optimizer takes and returns: options (limits, encoding, SAT engine), the outcome
+// the CLI prints, and the material a certificate is written from.
+import type { PreparedTask } from "../analyse/index.js";
+import type { StepEncodingId } from "../encode/index.js";
+import type { GroundOptions, Task } from "../ground/index.js";
+import type { HorizonReport } from "../horizon/index.js";
+import type { Model } from "../pddl/index.js";
+import type { LandmarkRecord } from "../search/index.js";
+import type { StopReason } from "./budget.js";
+import type { ExtensionId, Formula } from "./formula.js";
+import type { CheckedPlan } from "./plan-check.js";
+import type { ProofChecker, ProofFile } from "./sat-session.js";
+
+export type OutcomeStatus = "optimal" | "feasible" | "unsolvable" | "unknown";
+export type ProofHow = "horizon-unsat" | "lower-bound" | "relaxed-unreachable";
+
+export interface OptimizeOptions {
+  /** Step encoding of the proof formula (default forall-1). */
+  encoding?: StepEncodingId;
+  /** "builtin" (default) or "external:CMD". */
+  sat?: string;
+  /** Seconds for the whole run. */
+  timeLimit?: number;
+  /** Absolute deadline (Date.now() ms); the earlier of this and timeLimit counts. */
+  deadline?: number;
+  /** Resident-memory ceiling in MB (polled; also used to refuse formulas that would not fit). */
+  memoryLimitMb?: number;
+  signal?: AbortSignal;
+  /** Progress lines for a person watching (bound, horizon, size, conflicts, elapsed). */
+  onProgress?: (line: string) => void;
+  /** Minimum milliseconds between progress lines (default 2000). */
+  progressIntervalMs?: number;
+  /** Clause families added to the encoder's formula (default: all known). */
+  extensions?: ExtensionId[];
+  /** Largest proof formula the optimizer builds, in clauses (default 30 million). */
+  maxClauses?: number;
+  /** Seconds GBFS may take for the first plan (default min(30, a tenth of the time limit)). */
+  firstPlanSeconds?: number;
+  /** Directory for temporary proof files (default: the system temp directory). */
+  tmpDir?: string;
+  /**
+   * Checks an external solver's DRAT proof (src/proof's checker, passed in by the CLI; this
+   * stage may not import it). Without one, an external "unsat" is re-proved by the built-in solver.
+   */
+  proofChecker?: ProofChecker;
+  /** Quick SAT queries at short horizons before the proof formula (default true). */
+  probes?: boolean;
+}
+
+export interface TimelineEvent {
+  seconds: number;
+  /** "lower-bound", "plan", "horizon", "encode", "proof", "stop", … */
+  kind: string;
+  /** Best plan cost so far (null without a plan). */
+  upper: number | null;
+  /** Proven lower bound so far. */
+  lower: number;
+  detail?: string;
+}
+
+/** Everything a certificate is written from (kept in memory until written or disposed). */
+export interface CertificateMaterial {
+  model: Model;
+  groundOptions: GroundOptions;
+  task: Task;
+  prepared: PreparedTask;
+  claim: { status: "optimal" | "unsolvable"; how: ProofHow };
+  plan: CheckedPlan | null;
+  /** horizon-unsat: the horizon report for the upper cost the formula was built for. */
+  horizon: HorizonReport | null;
+  formula: Formula | null;
+  /** The unit clauses of the final query (bound literals). */
+  units: number[];
+  /** The bound B of the final query "cost ≤ B" (null for plain reachability). */
+  bound: number | null;
+  proof: ProofFile | null;
+  landmarks: LandmarkRecord | null;
+  timeline: TimelineEvent[];
+}
+
+export interface OptimizeOutcome {
+  status: OutcomeStatus;
+  /** Why the run stopped early (limits), or why no proof was attempted. */
+  stopReason: StopReason | "horizon-too-large" | "no-proof" | null;
+  cost: number | null;
+  /** Proven lower bound (Infinity when unsolvable). */
+  lowerBound: number;
+  plan: CheckedPlan | null;
+  how: ProofHow | null;
+  /** Who established the claim, for people ("SAT (built-in solver, DRAT proof)", …). */
+  provedBy: string | null;
+  /** The horizon of the proof formula, or the one a proof would need (string when huge). */
+  horizon: number | string | null;
+  horizonWinner: string | null;
+  encoding: string | null;
+  proof: ProofFile | null;
+  seconds: number;
+  timeToFirstPlan: number | null;
+  timeToProof: number | null;
+  timeline: TimelineEvent[];
+  satCalls: number;
+  conflicts: number;
+  variables: number | null;
+  clauses: number | null;
+  peakRssBytes: number;
+  notes: string[];
+  certificate: CertificateMaterial | null;
+}
