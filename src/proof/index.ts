@@ -1,11 +1,16 @@
 // The proof checker's public surface: check a DRAT proof (binary or text, gzip or not) against
-// a CNF. Stand-alone by design: it imports nothing from src/sat, so it shares no bugs with it.
-import { readBytes } from "../util/files.js";
+// a CNF, optionally writing an LRAT proof, and check LRAT proofs with a separate simple checker.
+// Stand-alone by design: it imports nothing from src/sat, so it shares no bugs with it.
+import { closeSync, openSync, renameSync, rmSync, writeSync } from "node:fs";
+import { PlumblineError } from "../util/errors.js";
+import { readBytes, tempNameFor } from "../util/files.js";
 import { checkSteps, type DratOptions, type DratResult } from "./checker.js";
 import { readCnfForChecker, type CheckerCnf } from "./cnf-reader.js";
 import { maybeGunzip, readProof } from "./proof-reader.js";
 
 export type { DratOptions, DratResult, DratStats, FailedLemma, CheckMode } from "./checker.js";
+export type { LratSink } from "./lrat-writer.js";
+export { checkLrat, type LratResult } from "./lrat-checker.js";
 export { readCnfForChecker, type CheckerCnf } from "./cnf-reader.js";
 export { isBinaryProof, maybeGunzip } from "./proof-reader.js";
 
@@ -18,9 +23,37 @@ export function checkDrat(cnf: CheckerCnf, proof: Uint8Array, opts?: DratOptions
   return checkSteps(cnf, readProof(maybeGunzip(proof)), opts);
 }
 
+export interface DratFileOptions extends Omit<DratOptions, "lrat"> {
+  /** Write an LRAT proof here when the DRAT proof is valid (via a temporary name; nothing on rejection). */
+  lratFile?: string;
+}
+
 /** Reads a CNF file and a proof file and checks them (read errors are PlumblineErrors). */
-export function checkDratFiles(cnfPath: string, proofPath: string, opts?: DratOptions): DratResult & { warnings: string[] } {
+export function checkDratFiles(cnfPath: string, proofPath: string, opts: DratFileOptions = {}): DratResult & { warnings: string[] } {
   const cnf = readCnfForChecker(readBytes(cnfPath), cnfPath);
   const proof = readBytes(proofPath);
-  return { ...checkDrat(cnf, proof, opts), warnings: cnf.warnings };
+  const { lratFile, ...rest } = opts;
+  if (lratFile === undefined) return { ...checkDrat(cnf, proof, rest), warnings: cnf.warnings };
+  const tmp = tempNameFor(lratFile);
+  let fd = -1;
+  try {
+    const r = checkDrat(cnf, proof, {
+      ...rest,
+      lrat: (chunk) => {
+        if (fd < 0) fd = openSync(tmp, "w");
+        writeSync(fd, chunk, null, "latin1");
+      },
+    });
+    if (fd >= 0) {
+      closeSync(fd);
+      fd = -1;
+      renameSync(tmp, lratFile);
+    }
+    return { ...r, warnings: cnf.warnings };
+  } catch (e) {
+    if (fd >= 0) closeSync(fd);
+    rmSync(tmp, { force: true });
+    if (e instanceof PlumblineError || !(e instanceof Error) || !("code" in e)) throw e;
+    throw new PlumblineError("io", `cannot write ${lratFile}: ${e.message}`);
+  }
 }
