@@ -2,6 +2,9 @@
 // variables, both dependency graphs, projections and (when small) the explicit state space.
 import type { Task } from "../ground/task.js";
 import { buildStateGraph, dependencyGraph, isExceeded, prepareTask, type DependencyGraph, type PreparedTask } from "../analyse/index.js";
+import { excessLowerBound, type ExcessBound } from "./excess.js";
+import { optimalLength, type OptimalLength } from "./optimal-length.js";
+import { patternExcessBounds } from "./patterns.js";
 import { reachStats } from "./reach.js";
 import { projectionContext, type ProjectionContext } from "./projection.js";
 import { HORIZON_DEFAULTS, type HorizonOptions } from "./types.js";
@@ -27,20 +30,42 @@ export interface BoundContext {
   zeroGraph(): DependencyGraph;
   /** The explicit state space explored up to `cap` states (default: the option's limit). */
   explicit(cap?: number): ExplicitSpace;
+  /** Certified lower bound on every plan's cost beyond `unit` per positive action (cached). */
+  excess(unit: number): ExcessBound;
+  /** Optimal cost and fewest actions among optimal plans, by explicit search (cached). */
+  optimal(): OptimalLength;
 }
 
+/**
+ * Contexts are cached per Task object and options: everything in them is a function of those,
+ * and the optimizer asks for horizons of the same task at several costs.
+ */
+const contexts = new WeakMap<Task, Map<string, BoundContext>>();
+
 export function boundContext(task: Task, opts: HorizonOptions = {}): BoundContext {
+  const key = JSON.stringify([opts.relevance ?? true, opts.h2 ?? null, opts.maxProjectionStates, opts.projectionBudget, opts.maxUncertainEffects, opts.maxExplicitStates, opts.maxOptimalStates]);
+  let byOptions = contexts.get(task);
+  if (!byOptions) contexts.set(task, (byOptions = new Map()));
+  let ctx = byOptions.get(key);
+  if (!ctx) byOptions.set(key, (ctx = newContext(task, opts)));
+  return ctx;
+}
+
+function newContext(task: Task, opts: HorizonOptions): BoundContext {
   const prepared = prepareTask(task, { relevance: opts.relevance ?? true, h2: opts.h2 });
   const limits = {
     maxProjectionStates: opts.maxProjectionStates ?? HORIZON_DEFAULTS.maxProjectionStates,
     projectionBudget: opts.projectionBudget ?? HORIZON_DEFAULTS.projectionBudget,
     maxUncertainEffects: opts.maxUncertainEffects ?? HORIZON_DEFAULTS.maxUncertainEffects,
     maxExplicitStates: opts.maxExplicitStates ?? HORIZON_DEFAULTS.maxExplicitStates,
+    maxOptimalStates: opts.maxOptimalStates ?? HORIZON_DEFAULTS.maxOptimalStates,
   };
   const projection = projectionContext(prepared.task, prepared.pairs, prepared.variables);
   let full: DependencyGraph | undefined;
   let zero: DependencyGraph | undefined;
   let space: ExplicitSpace | undefined;
+  let optimal: OptimalLength | undefined;
+  const excess = new Map<number, ExcessBound>();
   const explicit = (cap: number = limits.maxExplicitStates): ExplicitSpace => {
     if (space) {
       if (space.states !== null) return space.states <= cap ? space : { states: null, largestZeroReach: null, zeroCostDiameter: null, maxStates: cap };
@@ -56,7 +81,28 @@ export function boundContext(task: Task, opts: HorizonOptions = {}): BoundContex
     fullGraph: () => (full ??= dependencyGraph(prepared.task, prepared.variables)),
     zeroGraph: () => (zero ??= dependencyGraph(prepared.task, prepared.variables, (a) => a.cost === 0)),
     explicit,
+    excess: (unit) => {
+      let e = excess.get(unit);
+      if (!e) {
+        e = excessLowerBound(prepared.task, unit);
+        if (prepared.task.actions.some((a) => a.cost > unit))
+          e.patterns = patternExcessBounds(projection, (full ??= dependencyGraph(prepared.task, prepared.variables)), unit, {
+            maxStates: limits.maxProjectionStates,
+            maxUncertain: limits.maxUncertainEffects,
+            budget: { remaining: limits.projectionBudget },
+          });
+        excess.set(unit, e);
+      }
+      return e;
+    },
+    optimal: () => (optimal ??= optimalLength(prepared.task, optimalStateCap(prepared.task, limits.maxOptimalStates))),
   };
+}
+
+/** The state cap of the exact explicit method: the option, and at most 2^25 stored words. */
+export function optimalStateCap(task: Task, maxStates: number): number {
+  const words = Math.max(1, Math.ceil(task.facts.length / 32));
+  return Math.max(1, Math.min(maxStates, Math.floor(2 ** 25 / words)));
 }
 
 function explicitSpace(task: Task, maxStates: number): ExplicitSpace {

@@ -8,7 +8,7 @@ import type { HorizonOptions, HorizonReport, MethodResult } from "./types.js";
 
 export type { HorizonOptions, HorizonReport, MethodResult } from "./types.js";
 export { HORIZON_DEFAULTS } from "./types.js";
-export { costMethod, zeroCostMethod, compositionalMethod, explicitMethod, METHODS, type HorizonMethod } from "./methods.js";
+export { costMethod, zeroCostMethod, compositionalMethod, explicitOptimalMethod, explicitMethod, METHODS, type HorizonMethod } from "./methods.js";
 export { boundContext, type BoundContext, type ExplicitSpace } from "./context.js";
 export { compositionalBound, type ComponentBound, type CompositionalResult, type BlockMode } from "./compositional.js";
 export { reachStats, largestReachableSet, type ReachStats } from "./reach.js";

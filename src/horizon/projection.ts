@@ -45,9 +45,18 @@ export interface ProjectionExplored {
   states: number;
   /** Number of actions that touch the projection. */
   actions: number;
+  /** The projected states (bit i = fact `facts[i]`), when requested. */
+  stateSet?: PackedStateSet;
+  /** Sorted global ids of the projection's facts (the bit order of `stateSet`). */
+  facts?: number[];
   /** CSR over the zero-cost projected transitions (when requested). */
   zeroStart?: Int32Array;
   zeroTarget?: Int32Array;
+  /** CSR over all projected transitions that change the projected state (when requested). */
+  allStart?: Int32Array;
+  allTarget?: Int32Array;
+  /** Action of each edge of the `all` CSR (when all edges are requested). */
+  allAction?: Int32Array;
 }
 
 export interface ProjectionGaveUp {
@@ -63,6 +72,10 @@ export interface ProjectionLimits {
   /** Shared budget of projected states across projections; decremented. */
   budget: { remaining: number };
   zeroEdges: boolean;
+  /** Also record every transition between distinct projected states. */
+  allEdges?: boolean;
+  /** Also return the projected states. */
+  keepStates?: boolean;
 }
 
 interface CompiledCond {
@@ -76,6 +89,7 @@ interface CompiledCond {
 }
 
 interface Compiled {
+  action: number;
   pre: number[];
   preNeg: number[];
   outsidePre: number[];
@@ -125,6 +139,7 @@ function explore(ctx: ProjectionContext, vars: readonly number[], facts: number[
       conds.push({ cond: local(ce.cond), condNeg: local(ce.condNeg), add, del, outside: oc, uncertain: oc.length + ocn.length > 0 });
     }
     compiled.push({
+      action: ai,
       pre: local(a.pre),
       preNeg: local(a.preNeg),
       outsidePre: usePairs ? outside(a.pre) : [],
@@ -148,6 +163,9 @@ function explore(ctx: ProjectionContext, vars: readonly number[], facts: number[
   const none = (s: Uint32Array, ls: number[]) => ls.every((l) => !has(s, l));
   const zeroFrom: number[] = [];
   const zeroTo: number[] = [];
+  const allFrom: number[] = [];
+  const allTo: number[] = [];
+  const allAct: number[] = [];
   const y = new Uint32Array(W);
   const next = new Uint32Array(W);
   const trueGlobal = (s: Uint32Array): number[] => {
@@ -207,22 +225,38 @@ function explore(ctx: ProjectionContext, vars: readonly number[], facts: number[
           zeroFrom.push(i);
           zeroTo.push(j);
         }
+        if (lim.allEdges && j !== i) {
+          allFrom.push(i);
+          allTo.push(j);
+          allAct.push(c.action);
+        }
       }
     }
   }
   const out: ProjectionExplored = { kind: "explored", states: states.size, actions: compiled.length };
-  if (lim.zeroEdges) {
-    const n = states.size;
-    const start = new Int32Array(n + 1);
-    for (const f of zeroFrom) start[f + 1]++;
-    for (let v = 0; v < n; v++) start[v + 1] += start[v];
-    const fill = start.slice(0, n);
-    const target = new Int32Array(zeroFrom.length);
-    zeroFrom.forEach((f, e) => (target[fill[f]++] = zeroTo[e]));
-    out.zeroStart = start;
-    out.zeroTarget = target;
+  if (lim.keepStates) {
+    out.stateSet = states;
+    out.facts = facts;
   }
+  if (lim.zeroEdges) [out.zeroStart, out.zeroTarget] = toCsr(states.size, zeroFrom, zeroTo);
+  if (lim.allEdges) [out.allStart, out.allTarget, out.allAction] = toCsr(states.size, allFrom, allTo, allAct);
   return out;
+}
+
+/** Edge lists → CSR (edges of a source keep their order), with an optional edge label list. */
+export function toCsr(n: number, from: readonly number[], to: readonly number[], label: readonly number[] = []): [Int32Array, Int32Array, Int32Array] {
+  const start = new Int32Array(n + 1);
+  for (const f of from) start[f + 1]++;
+  for (let v = 0; v < n; v++) start[v + 1] += start[v];
+  const fill = start.slice(0, n);
+  const target = new Int32Array(from.length);
+  const labels = new Int32Array(label.length > 0 ? from.length : 0);
+  from.forEach((f, e) => {
+    const at = fill[f]++;
+    target[at] = to[e];
+    if (label.length > 0) labels[at] = label[e];
+  });
+  return [start, target, labels];
 }
 
 function admissible(

@@ -7,6 +7,8 @@ export interface ReachStats {
   largestSet: number;
   /** Largest shortest-path distance from a state to one it reaches; null when not computed. */
   largestDistance: number | null;
+  /** BFS work spent (nodes plus edges visited). */
+  work: number;
 }
 
 /**
@@ -15,7 +17,7 @@ export interface ReachStats {
  * condensation is small enough, else the number of states (an upper bound); no distance.
  */
 export function reachStats(n: number, start: Int32Array, target: Int32Array, maxWork = 50_000_000): ReachStats {
-  if (n === 0) return { largestSet: 0, largestDistance: 0 };
+  if (n === 0) return { largestSet: 0, largestDistance: 0, work: 0 };
   const dist = new Int32Array(n).fill(-1);
   const queue = new Int32Array(n);
   let largestSet = 1;
@@ -41,9 +43,9 @@ export function reachStats(n: number, start: Int32Array, target: Int32Array, max
     }
     if (tail > largestSet) largestSet = tail;
     for (let i = 0; i < tail; i++) dist[queue[i]] = -1;
-    if (work > maxWork) return { largestSet: largestReachableSet(n, start, target), largestDistance: null };
+    if (work > maxWork) return { largestSet: largestReachableSet(n, start, target), largestDistance: null, work };
   }
-  return { largestSet, largestDistance };
+  return { largestSet, largestDistance, work };
 }
 
 /**

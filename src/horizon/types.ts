@@ -3,7 +3,7 @@
 import type { H2Options } from "../analyse/index.js";
 
 export interface MethodResult {
-  /** "cost", "zero-cost", "compositional" or "explicit". */
+  /** "cost", "zero-cost", "compositional", "explicit-optimal" or "explicit". */
   method: string;
   /**
    * The completeness threshold this method proves (a number of actions), null when the method
@@ -42,6 +42,8 @@ export interface HorizonOptions {
   maxUncertainEffects?: number;
   /** Reachable states for the explicit method and the exact zero-cost distances (default 500,000). */
   maxExplicitStates?: number;
+  /** States stored by the exact explicit search for the shortest optimal plan (default 300,000; 0 disables it). */
+  maxOptimalStates?: number;
   h2?: H2Options;
 }
 
@@ -50,4 +52,5 @@ export const HORIZON_DEFAULTS = {
   projectionBudget: 400_000,
   maxUncertainEffects: 8,
   maxExplicitStates: 500_000,
+  maxOptimalStates: 300_000,
 } as const;

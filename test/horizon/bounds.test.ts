@@ -56,16 +56,18 @@ describe("bounds over-approximate what they bound", () => {
     expect(tight).toBeGreaterThan(5);
   });
 
-  it("ℓ₀ of the zero-cost method ≥ zero-cost distances between reachable states", () => {
+  it("one zero-cost segment's bound ≥ zero-cost distances between reachable states", () => {
     let positive = 0;
     let exact = 0;
     fc.assert(
       fc.property(fc.oneof(transitionTaskArb({ maxVars: 4, zeroShare: 0.6 }), richTaskArb({ zeroShare: 0.6 })), (task) => {
         const truth = zeroCostDiameter(task);
-        // projections only (no explicit state space), then with it: explicit ℓ₀ is exact
-        const projected = computeMethod(task, 10, "zero-cost", { ...noPruning, maxExplicitStates: 1 });
-        expect(projected.derivation.l0 as number).toBeGreaterThanOrEqual(truth);
-        const explicit = computeMethod(task, 10, "zero-cost", noPruning).derivation.explicit as { zeroCostDiameter?: number } | undefined;
+        // C = 1: no positive action fits, so the zero-cost method bounds a single zero-cost
+        // segment — projections only (no explicit state space, no exact search)
+        const projected = computeMethod(task, 1, "zero-cost", { ...noPruning, maxExplicitStates: 1, maxOptimalStates: 0 });
+        if (task.actions.some((a) => a.cost === 0)) expect(projected.value!).toBeGreaterThanOrEqual(truth);
+        // with the explicit state space, its ℓ₀ is exact
+        const explicit = computeMethod(task, 10, "zero-cost", { ...noPruning, maxOptimalStates: 0 }).derivation.explicit as { zeroCostDiameter?: number } | undefined;
         if (explicit?.zeroCostDiameter !== undefined) {
           expect(explicit.zeroCostDiameter).toBe(truth);
           exact++;
@@ -130,9 +132,14 @@ describe("derivations", () => {
     const expected = 2n ** BigInt(m + 2) - 4n - 2n * BigInt(m);
     expect(r.valueText).toBe(expected.toString());
     expect(r.value).toBe(Number.POSITIVE_INFINITY); // never rounded down
-    const json = horizonReportJson(computeHorizon(task, 100, noPruning));
-    expect((json.methods as Array<{ method: string; value: unknown }>).find((x) => x.method === "compositional")!.value).toBe(expected.toString());
-    expect(json.horizon).toBe(99); // the cost bound wins: floor((100 − 1) / 1)
-    expect(json.winner).toBe("cost");
+    // for plan existence (C = ∞) the huge sum is the horizon, in JSON as an exact decimal string
+    const json = horizonReportJson(computeHorizon(task, Number.POSITIVE_INFINITY, { ...noPruning, maxOptimalStates: 0 }));
+    expect(json.horizon).toBe(expected.toString());
+    expect(json.winner).toBe("compositional");
+    // with C = 100 every plan considered has at most 99 actions (all cost 1): the cap applies
+    const capped = horizonReportJson(computeHorizon(task, 100, { ...noPruning, maxOptimalStates: 0 }));
+    expect((capped.methods as Array<{ method: string; value: unknown }>).find((x) => x.method === "compositional")!.value).toBe(99);
+    expect(capped.horizon).toBe(99); // the cost bound wins (first in order): floor((100 − 1) / 1)
+    expect(capped.winner).toBe("cost");
   });
 });

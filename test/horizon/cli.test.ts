@@ -38,7 +38,7 @@ describe("plumbline horizon", () => {
     const r = await cli(["horizon", D, P, "--json"]);
     expect(r.code).toBe(0);
     const j = r.json();
-    expect(j.methods.map((m: { method: string }) => m.method)).toEqual(["cost", "zero-cost", "compositional", "explicit"]);
+    expect(j.methods.map((m: { method: string }) => m.method)).toEqual(["cost", "explicit-optimal", "zero-cost", "compositional", "explicit"]);
     expect(j.methods.find((m: { method: string }) => m.method === "cost").value).toBeNull(); // zero-cost walks
     expect(typeof j.upperCost).toBe("number"); // from the first plan
     expect(j.horizon).toBeGreaterThanOrEqual(6); // the only cheapest plan has 6 actions (worked by hand)
