@@ -3,10 +3,10 @@
 import * as fs from "node:fs";
 import * as path from "node:path";
 import { prepareTask, type PreparedTask } from "../analyse/index.js";
-import { STEP_ENCODINGS, type StepEncodingId } from "../encode/index.js";
+import { checkParts, COST_ENCODINGS, STEP_ENCODINGS, type CostEncodingId, type PartId, type StepEncodingId } from "../encode/index.js";
 import { ground, type Task } from "../ground/index.js";
 import { computeHorizon, horizonReportJson } from "../horizon/index.js";
-import { buildFormula, canonicalCnfSha256, checkerCnf, costBitsFor, EXTENSIONS, formulaId, type ExtensionId, type FormulaSpec } from "../optimize/index.js";
+import { boundSettings, buildFormula, canonicalCnfSha256, checkerCnf, formulaId, type FormulaSpec } from "../optimize/index.js";
 import { modelFromTexts, type Model } from "../pddl/index.js";
 import { parsePlan, replayPlan } from "../plan/index.js";
 import { checkDrat } from "../proof/index.js";
@@ -286,23 +286,34 @@ function auditHorizonUnsat(c: Checks, dir: string, cert: CertificateJson, task: 
   }
   const groups = prepared.variables.variables.filter((v) => v.facts.length > 1).map((v) => [...v.facts]);
   const step = enc.step as StepEncodingId;
-  const exts = Array.isArray(enc.extensions) ? (enc.extensions as ExtensionId[]) : [];
-  const stepOk = STEP_ENCODINGS.includes(step) && enc.cost === "cost-adder-1";
-  const extOk = exts.every((x) => EXTENSIONS.includes(x)) && new Set(exts).size === exts.length;
-  const spec: FormulaSpec = { encoding: step, steps: H, costBits: costBitsFor(upper), mutexGroups: groups, extensions: exts };
+  const costId = enc.cost as CostEncodingId;
+  let parts: PartId[] | null = null;
+  try {
+    parts = checkParts(Array.isArray(enc.extensions) ? (enc.extensions as string[]) : undefined);
+  } catch {
+    parts = null;
+  }
+  const stepOk = STEP_ENCODINGS.includes(step) && COST_ENCODINGS.includes(costId);
+  const partsOk = parts !== null && Array.isArray(enc.extensions);
+  const spec: FormulaSpec = { encoding: step, cost: costId, steps: H, ...boundSettings(upper), mutexGroups: groups, parts: parts ?? [] };
   const bound = optimal ? cost! - 1 : null;
   const problems: string[] = [];
   if (!stepOk) problems.push(`unknown step or cost encoding ${JSON.stringify(enc.step)} / ${JSON.stringify(enc.cost)}`);
-  if (!extOk) problems.push(`unknown or repeated extensions ${JSON.stringify(enc.extensions)}`);
-  if (stepOk && extOk && enc.id !== formulaId(spec)) problems.push(`id ${JSON.stringify(enc.id)} is not ${formulaId(spec)}`);
+  if (!partsOk) problems.push(`unknown, repeated or misordered parts ${JSON.stringify(enc.extensions)}`);
+  if (stepOk && partsOk && enc.id !== formulaId(spec)) problems.push(`id ${JSON.stringify(enc.id)} is not ${formulaId(spec)}`);
   const params: Record<string, unknown> = isObj(enc.params) ? enc.params : {};
+  // the bound setting of the recorded cost encoding, recomputed from the upper cost
+  const setting = costId === "cost-unary-1" ? "costCap" : "costBits";
+  const settingValue = setting === "costCap" ? spec.costCap : spec.costBits;
   if (params.steps !== H) problems.push(`steps ${JSON.stringify(params.steps)} is not the recomputed horizon ${H}`);
-  if (params.costBits !== spec.costBits) problems.push(`costBits ${JSON.stringify(params.costBits)} is not ${spec.costBits}`);
+  if (params[setting] !== settingValue) problems.push(`${setting} ${JSON.stringify(params[setting])} is not ${settingValue}`);
+  const extra = Object.keys(params).filter((k) => !["steps", setting, "mutexGroups"].includes(k));
+  if (extra.length > 0) problems.push(`unexpected parameters ${extra.join(", ")} for ${JSON.stringify(enc.cost)}`);
   const gd = firstDifference(groups, params.mutexGroups, "mutexGroups");
   if (gd) problems.push(`mutex groups differ from the recomputed ones (${gd})`);
   if (enc.bound !== bound) problems.push(`the final query's bound ${JSON.stringify(enc.bound)} is not ${bound === null ? "null (any plan)" : `the claimed cost − 1 = ${bound}`}`);
-  if (!c.check("encoding", problems.length === 0, `${formulaId(spec)}, ${H} steps, ${spec.costBits} bound bits, ${groups.length} mutex groups, query ${bound === null ? "any plan" : `cost ≤ ${bound}`}`, problems.join("; "))) {
-    if (!stepOk || !extOk) {
+  if (!c.check("encoding", problems.length === 0, `${formulaId(spec)}, ${H} steps, ${setting} ${settingValue}, ${groups.length} mutex groups, query ${bound === null ? "any plan" : `cost ≤ ${bound}`}`, problems.join("; "))) {
+    if (!stepOk || !partsOk) {
       c.skip("cnf-hash", "unknown encoding");
       c.skip("proof-check", "unknown encoding");
       return;

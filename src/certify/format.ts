@@ -17,7 +17,7 @@ export const CAUTION = "A proof of optimality is about the model as written: a p
 
 /** How the certificate's CNF is serialised before hashing (so anyone can reproduce the hash). */
 export const CNF_FORM =
-  "canonical DIMACS: 'p cnf V C' line, then one clause per line ('l1 l2 ... 0'): the encoder's clauses in order, the extensions' clauses, then one unit clause per bound literal; no comments, '\\n' line ends";
+  "canonical DIMACS: 'p cnf V C' line, then one clause per line ('l1 l2 ... 0'): the encoder's clauses in order (its parts included), then one unit clause per bound literal; no comments, '\\n' line ends";
 
 export interface FileRecord {
   file: string;
@@ -41,8 +41,10 @@ export interface CertificateJson {
     id: string;
     step: string;
     cost: string;
+    /** The encoding's optional parts (src/encode PARTS; the name dates from when they were optimizer extensions). */
     extensions: string[];
-    params: { steps: number; costBits: number; mutexGroups: number[][] };
+    /** costBits for cost-adder-1, costCap for cost-unary-1. */
+    params: { steps: number; costBits?: number; costCap?: number; mutexGroups: number[][] };
     /** The final query: "plan cost ≤ bound" (null: any plan at all). */
     bound: number | null;
     boundUnits: number[];

@@ -77,8 +77,12 @@ export async function writeCertificate(dir: string, m: CertificateMaterial): Pro
       id: formulaId(f.spec),
       step: f.spec.encoding,
       cost: f.params.cost,
-      extensions: [...f.spec.extensions],
-      params: { steps: f.spec.steps, costBits: f.spec.costBits, mutexGroups: f.params.mutexGroups },
+      // the encoding's optional parts (the field kept its name from when they were optimizer extensions)
+      extensions: [...f.spec.parts],
+      params:
+        f.params.cost === "cost-unary-1"
+          ? { steps: f.spec.steps, costCap: f.spec.costCap, mutexGroups: f.params.mutexGroups }
+          : { steps: f.spec.steps, costBits: f.spec.costBits, mutexGroups: f.params.mutexGroups },
       bound: m.bound,
       boundUnits: [...m.units],
     };

@@ -32,6 +32,9 @@ export class CnfBuilder {
   private clauseCount = 0;
   private varCount = 0;
   private readonly ranges: VarRange[] = [];
+  /** Per variable: 1 fixed true, −1 fixed false, 0 free (null: no simplification). */
+  private fixed: Int8Array | null = null;
+  private readonly kept: number[] = [];
 
   get numVars(): number {
     return this.varCount;
@@ -75,8 +78,39 @@ export class CnfBuilder {
     return null;
   }
 
+  /**
+   * From now on, simplify every added clause by the fixed values (1 true, −1 false, 0 free;
+   * variables past the array's end are free): a clause with a fixed-true literal is dropped,
+   * fixed-false literals are left out — unless every literal is fixed false, then the clause
+   * is kept whole (so the CNF never holds an empty clause). null switches this off.
+   */
+  simplifyWith(fixed: Int8Array | null): void {
+    this.fixed = fixed;
+  }
+
   /** Appends the first `n` literals of `lits` as one clause (literals must name allocated variables). */
   addClause(lits: ArrayLike<number>, n: number = lits.length): void {
+    const fixed = this.fixed;
+    if (fixed !== null) {
+      const kept = this.kept;
+      kept.length = 0;
+      for (let i = 0; i < n; i++) {
+        const l = lits[i];
+        const v = l < 0 ? -l : l;
+        const val = v < fixed.length ? fixed[v] : 0;
+        if (val === 0) kept.push(l);
+        else if ((val > 0) === (l > 0)) return; // satisfied by a fixed literal
+      }
+      if (kept.length > 0 && kept.length < n) {
+        this.fixed = null;
+        try {
+          this.addClause(kept);
+        } finally {
+          this.fixed = fixed;
+        }
+        return;
+      }
+    }
     if (this.litCount + n > this.lits.length) this.lits = grow(this.lits, this.litCount + n);
     for (let i = 0; i < n; i++) {
       const l = lits[i];

@@ -1,37 +1,53 @@
-// encodePlanning: a Task unrolled to T steps as CNF (core-1 + a step encoding + cost-adder-1),
-// with the variable map, bound assumptions and model decoding the optimizer needs.
+// encodePlanning: a Task unrolled to T steps as CNF (core-1 + a step encoding + a cost encoding
+// + optional parts), with the variable map, bound assumptions and model decoding the optimizer needs.
 import type { Task } from "../ground/task.js";
-import { buildAdder } from "./adder.js";
-import { bitLength } from "./adder.js";
 import { atMostOne } from "./amo.js";
 import { CnfBuilder, type ClauseSink, type CompactClauses, type PlainCnf } from "./cnf.js";
-import { comparatorAssumptions, emitComparator } from "./comparator.js";
 import { coreTemplates, emitInitAndGoal, emitStepCore } from "./core.js";
+import type { Possible } from "./cost-inputs.js";
+import { emitCostPart } from "./cost-part.js";
 import { toDimacs, writeDimacsChunks } from "./dimacs.js";
+import { emitEmptyStepsLast } from "./empty-steps-last.js";
+import { checkParts, COST_ENCODINGS, type CostEncodingId, type PartId } from "./ids.js";
 import { Layout } from "./layout.js";
+import { emitReachUnits, reachLayers, type ReachMode } from "./reach.js";
 import { STEP_ENCODINGS, stepRules, type StepEncodingId } from "./step-rules.js";
 import { taskInfo } from "./task-info.js";
 
+/** The cost encoding of every CNF built before cost-unary-1 existed, and still the default. */
 export const COST_ENCODING = "cost-adder-1";
 
 export interface EncodeOptions {
   encoding: StepEncodingId;
   /** Horizon T ≥ 0: fact time points 0..T, action steps 1..T. */
   steps: number;
-  /** Bound bits m; default: just enough for the largest possible sum (bitLength(maxSum)). */
+  /** Cost encoding (default cost-adder-1). */
+  cost?: CostEncodingId;
+  /** cost-adder-1: bound bits m; default just enough for the largest possible sum (bitLength(maxSum)). */
   costBits?: number;
+  /** cost-unary-1: outputs "cost ≥ j" for j = 1..costCap, the last saturating; default the largest possible sum. */
+  costCap?: number;
   /** Fact-id groups known to be mutually exclusive in every reachable state (redundant AMOs). */
   mutexGroups?: readonly (readonly number[])[];
+  /** Optional parts, distinct and in canonical order (PARTS): reach-1, empty-steps-last-1. */
+  parts?: readonly PartId[];
+  /** For measurements only: reach-1 without simplifying the other clauses (not a spec'd id). */
+  reachMode?: ReachMode;
 }
 
 /** Everything needed to rebuild the identical CNF from the same Task (JSON-safe). */
 export interface EncodingParams {
   encoding: StepEncodingId;
-  cost: typeof COST_ENCODING;
+  cost: CostEncodingId;
   steps: number;
-  costBits: number;
+  /** cost-adder-1 only. */
+  costBits?: number;
+  /** cost-unary-1 only. */
+  costCap?: number;
   /** Normalised: each group sorted ascending, groups of fewer than 2 facts dropped. */
   mutexGroups: number[][];
+  /** Present only when non-empty. */
+  parts?: PartId[];
 }
 
 /** Variable and clause counts, per part of the encoding. */
@@ -58,15 +74,19 @@ export interface Encoding {
   actionVar(step: number, action: number): number;
   /** Variable of "fact f at time t" (t ∈ 0..T). */
   factVar(time: number, fact: number): number;
-  /** Sum bits of the cost circuit (literal per bit, 0 = constant false), for inspection. */
+  /**
+   * The cost circuit's outputs, for inspection: sum bits (cost-adder-1) or "cost ≥ j" literals,
+   * j = 1..costCap (cost-unary-1); 0 = constant false.
+   */
   readonly costSum: readonly number[];
-  /** The largest cost any assignment can have: Σ over the adder's inputs of weight. */
+  /** The largest cost any assignment can have (Σ over the cost inputs of their largest value). */
   readonly maxSum: number;
-  /** The largest B boundAssumptions accepts below maxSum: 2^costBits − 1. */
+  /** The largest B boundAssumptions accepts below maxSum: 2^costBits − 1, or costCap − 1. */
   readonly maxRepresentableCost: number;
   /**
-   * Literals to assume for "plan cost ≤ B": the comparator's enable literal and B's bits;
-   * [] when B ≥ maxSum (no constraint needed). Throws RangeError for B < 0 or B not representable.
+   * Literals to assume for "plan cost ≤ B": the comparator's enable literal and B's bits
+   * (cost-adder-1) or the one literal ¬o_{B+1} (cost-unary-1); [] when B ≥ maxSum (no
+   * constraint needed). Throws RangeError for B < 0 or B not representable.
    */
   boundAssumptions(B: number): number[];
   /** Actions per step (ascending ids) from a model; step 1 first. */
@@ -98,6 +118,9 @@ function normaliseGroups(groups: readonly (readonly number[])[] | undefined, tas
 
 export function encodePlanning(task: Task, opts: EncodeOptions): Encoding {
   if (!STEP_ENCODINGS.includes(opts.encoding)) throw new RangeError(`encode: unknown encoding ${String(opts.encoding)}`);
+  const costId = opts.cost ?? COST_ENCODING;
+  if (!COST_ENCODINGS.includes(costId)) throw new RangeError(`encode: unknown cost encoding ${String(costId)}`);
+  const parts = checkParts(opts.parts);
   const T = opts.steps;
   if (!Number.isInteger(T) || T < 0) throw new RangeError(`encode: steps must be a non-negative integer, got ${T}`);
   const groups = normaliseGroups(opts.mutexGroups, task);
@@ -117,12 +140,23 @@ export function encodePlanning(task: Task, opts: EncodeOptions): Encoding {
 
   emitInitAndGoal(cnf, task, L);
   part("init+goal");
+  let possible: Possible | undefined;
+  const extraStats: Record<string, number> = {};
+  if (parts.includes("reach-1")) {
+    const layers = reachLayers(task, info, T);
+    const fixed = emitReachUnits(cnf, task, L, layers);
+    possible = (s, a) => layers.possible[s][a] === 1;
+    if ((opts.reachMode ?? "simplify") === "simplify") cnf.simplifyWith(fixed);
+    extraStats.reachFixedFacts = layers.fixedFacts;
+    extraStats.reachFixedActions = layers.fixedActions;
+    part("reach");
+  }
   const tpl = coreTemplates(task, info);
   const rules = stepRules(opts.encoding, task, info, groups);
   for (let s = 1; s <= T; s++) {
     emitStepCore(cnf, task, info, tpl, L, s);
     part("steps-core");
-    rules.emitStep(cnf, L, s);
+    rules.emitStep(cnf, L, s, possible);
     part("step-rules");
   }
   const lits: number[] = [];
@@ -134,18 +168,15 @@ export function encodePlanning(task: Task, opts: EncodeOptions): Encoding {
     }
   }
   part("mutex");
-  const costGroups = rules.costGroups(cnf, L);
-  part("cost-inputs");
-  const adder = buildAdder(cnf, costGroups);
-  part("adder");
-  const width = bitLength(adder.maxSum);
-  const m = opts.costBits ?? width;
-  if (!Number.isInteger(m) || m < 0 || m > 52) throw new RangeError(`encode: costBits must be an integer in 0..52, got ${m}`);
-  const cmp = emitComparator(cnf, adder.sum, m);
-  part("comparator");
+  const cost = emitCostPart(cnf, task, rules, L, { id: costId, costBits: opts.costBits, costCap: opts.costCap }, possible, part);
+  if (parts.includes("empty-steps-last-1")) {
+    emitEmptyStepsLast(cnf, L);
+    part("empty-steps-last");
+  }
+  cnf.simplifyWith(null);
 
-  const params: EncodingParams = { encoding: opts.encoding, cost: COST_ENCODING, steps: T, costBits: m, mutexGroups: groups };
-  const maxRepresentableCost = 2 ** m - 1;
+  const params: EncodingParams = { encoding: opts.encoding, cost: costId, steps: T, [cost.setting.name]: cost.setting.value, mutexGroups: groups };
+  if (parts.length > 0) params.parts = parts;
   const stats: EncodingStats = {
     vars: cnf.numVars,
     clauses: cnf.numClauses,
@@ -154,14 +185,17 @@ export function encodePlanning(task: Task, opts: EncodeOptions): Encoding {
     actionVars: T * info.nA,
     clausesByPart,
     varsByPart,
-    fullAdders: adder.fullAdders,
-    halfAdders: adder.halfAdders,
+    fullAdders: 0,
+    halfAdders: 0,
+    ...cost.stats,
+    ...extraStats,
     ...rules.stats,
   };
+  const id = [opts.encoding, costId, ...parts].join("+");
   const comments = [
-    `plumbline ${opts.encoding}+${COST_ENCODING} steps=${T} costBits=${m} mutexGroups=${groups.length}`,
+    `plumbline ${id} steps=${T} ${cost.setting.name}=${cost.setting.value} mutexGroups=${groups.length}`,
     `facts=${info.nF} actions=${info.nA} fact-vars=1..${L.actBase - 1} action-vars=${L.actBase}..${L.auxBase - 1}`,
-    `bound enable=${cmp.enable} bits=${cmp.boundBits.join(",") || "-"}`,
+    cost.comment,
   ];
   return {
     params,
@@ -169,9 +203,9 @@ export function encodePlanning(task: Task, opts: EncodeOptions): Encoding {
     numVars: cnf.numVars,
     numClauses: cnf.numClauses,
     stats,
-    costSum: adder.sum,
-    maxSum: adder.maxSum,
-    maxRepresentableCost,
+    costSum: cost.outputs,
+    maxSum: cost.maxSum,
+    maxRepresentableCost: cost.maxRepresentable,
     actionVar: (s, a) => {
       if (!(s >= 1 && s <= T && a >= 0 && a < info.nA)) throw new RangeError(`encode: no action variable for step ${s}, action ${a}`);
       return L.action(s, a);
@@ -182,9 +216,7 @@ export function encodePlanning(task: Task, opts: EncodeOptions): Encoding {
     },
     boundAssumptions(B: number): number[] {
       if (!Number.isSafeInteger(B) || B < 0) throw new RangeError(`encode: cost bound must be a non-negative integer, got ${B}`);
-      if (B >= adder.maxSum) return [];
-      if (B > maxRepresentableCost) throw new RangeError(`encode: bound ${B} needs more than costBits=${m} bits`);
-      return comparatorAssumptions(cmp, B);
+      return cost.assumptions(B);
     },
     decode(model) {
       const out: number[][] = [];

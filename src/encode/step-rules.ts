@@ -5,7 +5,7 @@ import type { CostGroup } from "./adder.js";
 import { atMostOne } from "./amo.js";
 import { chainPlan, emitChain, type ChainPlan } from "./chains.js";
 import type { CnfBuilder } from "./cnf.js";
-import { bitWordGroups, costClassGroups, forallCliques } from "./cost-inputs.js";
+import { bitWordGroups, costClassGroups, forallCliques, unaryForallGroups, type Possible } from "./cost-inputs.js";
 import { familyPairCount, familyPairs, interferenceFamilies } from "./interference.js";
 import type { Layout } from "./layout.js";
 import type { TaskInfo } from "./task-info.js";
@@ -14,10 +14,15 @@ export type StepEncodingId = "seq-1" | "forall-1" | "forall-2";
 export const STEP_ENCODINGS: readonly StepEncodingId[] = ["seq-1", "forall-1", "forall-2"];
 
 export interface StepRules {
-  /** Clauses restricting which actions share step s (emitted after the core clauses of s). */
-  emitStep(cnf: CnfBuilder, L: Layout, s: number): void;
-  /** Emits any helper variables/clauses and returns the adder's input groups. */
-  costGroups(cnf: CnfBuilder, L: Layout): CostGroup[];
+  /**
+   * Clauses restricting which actions share step s (emitted after the core clauses of s).
+   * `possible` (part reach-1) leaves impossible actions out of seq-1's at-most-one.
+   */
+  emitStep(cnf: CnfBuilder, L: Layout, s: number, possible?: Possible): void;
+  /** Emits any helper variables/clauses and returns the adder's input groups (impossible actions left out). */
+  costGroups(cnf: CnfBuilder, L: Layout, possible?: Possible): CostGroup[];
+  /** cost-unary-1: groups of positive-cost actions of which at most one is taken per step. */
+  unaryGroups(): number[][];
   /** Figures for reports: interference pairs and chain families per step. */
   stats: Record<string, number>;
 }
@@ -27,27 +32,29 @@ function seqRules(task: Task, info: TaskInfo): StepRules {
   const acts: number[] = [];
   return {
     stats: {},
-    emitStep(cnf, L, s) {
+    emitStep(cnf, L, s, possible) {
       acts.length = 0;
-      for (let a = 0; a < info.nA; a++) acts.push(L.action(s, a));
+      for (let a = 0; a < info.nA; a++) if (!possible || possible(s, a)) acts.push(L.action(s, a));
       atMostOne(cnf, acts, "amo");
     },
-    costGroups(cnf, L) {
+    costGroups(cnf, L, possible) {
       const all = [...Array(info.nA).keys()].filter((a) => task.actions[a].cost > 0);
-      return bitWordGroups(task, cnf, L, all);
+      return bitWordGroups(task, cnf, L, all, possible);
     },
+    unaryGroups: () => [[...Array(info.nA).keys()].filter((a) => task.actions[a].cost > 0)],
   };
 }
 
 /** forall-1: every interfering pair gets (¬a ∨ ¬b) at every step. */
-function forallPairRules(task: Task, info: TaskInfo): StepRules {
+function forallPairRules(task: Task, info: TaskInfo, groups: readonly number[][]): StepRules {
   const pairs = familyPairs(interferenceFamilies(task, info), info.nA);
   return {
     stats: { interferencePairs: pairs.length },
     emitStep(cnf, L, s) {
       for (const [a, b] of pairs) cnf.add2(-L.action(s, a), -L.action(s, b));
     },
-    costGroups: (cnf, L) => costClassGroups(task, cnf, L, []),
+    costGroups: (cnf, L, possible) => costClassGroups(task, cnf, L, [], possible),
+    unaryGroups: () => unaryForallGroups(task, info, interferenceFamilies(task, info), groups),
   };
 }
 
@@ -88,7 +95,8 @@ function forallChainRules(task: Task, info: TaskInfo, groups: readonly number[][
       for (const [a, b] of pairs) cnf.add2(-L.action(s, a), -L.action(s, b));
       for (const { plan } of chains) emitChain(cnf, plan, (u) => L.action(s, u));
     },
-    costGroups: (cnf, L) => costClassGroups(task, cnf, L, cliques),
+    costGroups: (cnf, L, possible) => costClassGroups(task, cnf, L, cliques, possible),
+    unaryGroups: () => unaryForallGroups(task, info, families, groups),
   };
 }
 
@@ -97,7 +105,7 @@ export function stepRules(id: StepEncodingId, task: Task, info: TaskInfo, groups
     case "seq-1":
       return seqRules(task, info);
     case "forall-1":
-      return forallPairRules(task, info);
+      return forallPairRules(task, info, groups);
     case "forall-2":
       return forallChainRules(task, info, groups);
   }

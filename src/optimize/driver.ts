@@ -3,7 +3,7 @@
 import * as fs from "node:fs";
 import * as path from "node:path";
 import { prepareTask, type PreparedTask } from "../analyse/index.js";
-import { extractPlan, type StepEncodingId } from "../encode/index.js";
+import { extractPlan } from "../encode/index.js";
 import type { GroundOptions, Task } from "../ground/index.js";
 import { computeHorizon, type HorizonReport } from "../horizon/index.js";
 import type { Model } from "../pddl/index.js";
@@ -11,7 +11,8 @@ import { checkLandmarkCertificate, gbfs, landmarkCutAtInit, type LandmarkRecord 
 import { PlumblineError } from "../util/errors.js";
 import { Budget, type StopReason } from "./budget.js";
 import { estimateFormula } from "./estimate.js";
-import { buildFormula, costBitsFor, EXTENSIONS, formulaId, type Formula, type FormulaSpec } from "./formula.js";
+import { resolveEncoding, specFor, type EncodingChoice } from "./encoding-choice.js";
+import { boundSettings, buildFormula, formulaId, type Formula, type FormulaSpec } from "./formula.js";
 import { checkPlan, dropRedundant, InternalError, toGroundIds, type CheckedPlan } from "./plan-check.js";
 import { Progress } from "./progress.js";
 import { builtinSession, externalSession, makeWorkDir, type SatSession } from "./sat-session.js";
@@ -31,7 +32,7 @@ class Run {
   readonly timeline: TimelineEvent[] = [];
   readonly notes: string[] = [];
   readonly prepared: PreparedTask;
-  readonly encoding: StepEncodingId;
+  readonly encoding: EncodingChoice;
   readonly engine: string;
   readonly workDir: string;
   best: CheckedPlan | null = null;
@@ -53,7 +54,7 @@ class Run {
     this.budget = new Budget(opts);
     this.progress = new Progress(opts.onProgress, this.budget, opts.progressIntervalMs ?? 2000);
     this.prepared = prepareTask(task);
-    this.encoding = opts.encoding ?? "forall-1";
+    this.encoding = resolveEncoding(opts.encoding);
     this.engine = opts.sat ?? "builtin";
     if (this.engine !== "builtin" && !this.engine.startsWith("external:")) throw new PlumblineError("usage", `--sat expects builtin or external:CMD, found '${this.engine}'`);
     this.workDir = makeWorkDir(opts.tmpDir);
@@ -76,7 +77,7 @@ class Run {
 
   spec(steps: number, upper: number): FormulaSpec {
     const groups = this.prepared.variables.variables.filter((v) => v.facts.length > 1).map((v) => [...v.facts]);
-    return { encoding: this.encoding, steps, costBits: costBitsFor(upper), mutexGroups: groups, extensions: [...(this.opts.extensions ?? EXTENSIONS)] };
+    return specFor(this.prepared.task, this.encoding, { steps, ...boundSettings(upper), mutexGroups: groups });
   }
 
   /** Can a formula of `spec` be built and solved within the limits? */

@@ -1,20 +1,32 @@
-// The CNF a proof refutes: the encoder's planning formula plus the optimizer's own clause
-// families (extensions), rebuilt identically by the auditor, with its canonical DIMACS hash.
+// The CNF a proof refutes: the encoder's planning formula for a recorded spec (step encoding,
+// cost encoding, parts, bound settings), rebuilt identically by the auditor, with its canonical hash.
 import { createHash } from "node:crypto";
-import { encodePlanning, type Encoding, type EncodingParams, type StepEncodingId } from "../encode/index.js";
+import {
+  checkParts,
+  COST_ENCODINGS,
+  encodePlanning,
+  STEP_ENCODINGS,
+  type CostEncodingId,
+  type EncodeOptions,
+  type Encoding,
+  type EncodingParams,
+  type PartId,
+  type StepEncodingId,
+} from "../encode/index.js";
 import type { Task } from "../ground/task.js";
-
-/** Clause families the optimizer adds to the encoder's formula (ids are part of certificates). */
-export type ExtensionId = "empty-steps-last-1";
-export const EXTENSIONS: readonly ExtensionId[] = ["empty-steps-last-1"];
 
 /** Everything needed to rebuild the identical formula from the same (prepared) Task. */
 export interface FormulaSpec {
   encoding: StepEncodingId;
+  cost: CostEncodingId;
   steps: number;
+  /** cost-adder-1's bound bits (ignored by cost-unary-1). */
   costBits: number;
+  /** cost-unary-1's saturation point (ignored by cost-adder-1). */
+  costCap: number;
   mutexGroups: number[][];
-  extensions: ExtensionId[];
+  /** The encoding's optional parts (src/encode PARTS), in canonical order. */
+  parts: PartId[];
 }
 
 /** A clause sink (the SAT solver, a hash, a DIMACS writer, a checker's clause list). */
@@ -29,76 +41,48 @@ export interface Formula {
   readonly params: EncodingParams;
   readonly numVars: number;
   readonly numClauses: number;
-  /** Sends every clause, encoder's first, then the extensions', in a fixed order. */
+  /** Sends every clause, in the encoder's order. */
   streamTo(sink: Sink): void;
   /** Unit literals for "plan cost ≤ B" ([] when B is Infinity: plain reachability). */
   boundUnits(B: number): number[];
 }
 
+/** The encoder options of a spec: costBits for cost-adder-1, costCap for cost-unary-1. */
+export function encodeOptionsOf(spec: FormulaSpec): EncodeOptions {
+  return {
+    encoding: spec.encoding,
+    steps: spec.steps,
+    cost: spec.cost,
+    ...(spec.cost === "cost-unary-1" ? { costCap: spec.costCap } : { costBits: spec.costBits }),
+    mutexGroups: spec.mutexGroups,
+    parts: spec.parts,
+  };
+}
+
 /**
- * empty-steps-last-1: one variable n_s per step s = 1..T (numbered after the encoder's
- * variables, n_s = V + s), meaning "step s holds an action":
- *   (¬a@s ∨ n_s) for every action a;  (¬n_s ∨ a_1@s ∨ … ∨ a_k@s);  (¬n_s ∨ n_{s−1}) for s ≥ 2.
- * So the non-empty steps come first. Sound for completeness thresholds: a plan of m ≤ T
- * actions, one action per step in steps 1..m and the rest empty, satisfies it (a single action
- * is a valid step in every step encoding, and an empty step changes nothing). It removes the
- * many placements of the same plan among empty steps, which otherwise every refutation has
- * to cover.
+ * Builds the formula of `spec` for `task` (deterministic: same task and spec, same clauses).
+ * Everything is the encoder's (src/encode): certificates made when empty-steps-last-1 was an
+ * optimizer extension name the same clauses as the encoder's part of that id, in the same place.
  */
-function emptyStepsLast(enc: Encoding, nActions: number, sink: Sink): void {
-  const T = enc.params.steps;
-  const V = enc.numVars;
-  const big: number[] = [];
-  for (let s = 1; s <= T; s++) {
-    const n = V + s;
-    big.length = 0;
-    big.push(-n);
-    for (let a = 0; a < nActions; a++) {
-      const x = enc.actionVar(s, a);
-      sink.addClause([-x, n]);
-      big.push(x);
-    }
-    sink.addClause(big);
-    if (s >= 2) sink.addClause([-n, n - 1]);
-  }
-}
-
-function extensionSize(id: ExtensionId, T: number, nActions: number): { vars: number; clauses: number } {
-  switch (id) {
-    case "empty-steps-last-1":
-      return { vars: T, clauses: T * (nActions + 1) + Math.max(0, T - 1) };
-  }
-}
-
-/** Builds the formula of `spec` for `task` (deterministic: same task and spec, same clauses). */
 export function buildFormula(task: Task, spec: FormulaSpec): Formula {
-  for (const x of spec.extensions) if (!EXTENSIONS.includes(x)) throw new RangeError(`optimize: unknown formula extension ${String(x)}`);
-  const encoding = encodePlanning(task, { encoding: spec.encoding, steps: spec.steps, costBits: spec.costBits, mutexGroups: spec.mutexGroups });
-  const nA = task.actions.length;
-  let vars = encoding.numVars;
-  let clauses = encoding.numClauses;
-  for (const x of spec.extensions) {
-    const s = extensionSize(x, spec.steps, nA);
-    vars += s.vars;
-    clauses += s.clauses;
-  }
+  const encoding = encodePlanning(task, encodeOptionsOf(spec));
   return {
     spec,
     encoding,
     params: encoding.params,
-    numVars: vars,
-    numClauses: clauses,
-    streamTo(sink) {
-      encoding.streamTo(sink);
-      for (const x of spec.extensions) {
-        if (x === "empty-steps-last-1") emptyStepsLast(encoding, nA, sink);
-      }
-    },
+    numVars: encoding.numVars,
+    numClauses: encoding.numClauses,
+    streamTo: (sink) => encoding.streamTo(sink),
     boundUnits(B) {
       if (B === Number.POSITIVE_INFINITY) return [];
       return encoding.boundAssumptions(B);
     },
   };
+}
+
+/** The bound settings for formulas asked "cost ≤ B" for every B < upper (Infinity: no bound). */
+export function boundSettings(upper: number): { costBits: number; costCap: number } {
+  return { costBits: costBitsFor(upper), costCap: Number.isFinite(upper) ? upper : 0 };
 }
 
 /** Number of bound bits needed to ask "cost ≤ B" for every B < upper (at least 1). */
@@ -145,7 +129,21 @@ export function checkerCnf(f: Formula, units: readonly number[]): { numVars: num
   return { numVars: f.numVars, clauses };
 }
 
-/** The id a certificate records for the formula: step encoding + cost encoding (+ extensions). */
-export function formulaId(spec: FormulaSpec): string {
-  return [spec.encoding, "cost-adder-1", ...spec.extensions].join("+");
+/** The id a certificate records for the formula: step encoding + cost encoding (+ parts). */
+export function formulaId(spec: Pick<FormulaSpec, "encoding" | "cost" | "parts">): string {
+  return [spec.encoding, spec.cost, ...spec.parts].join("+");
+}
+
+/**
+ * Reads a formula id ("forall-1+cost-unary-1+reach-1+empty-steps-last-1") or a bare step
+ * encoding ("forall-1"; the cost and parts are then left to the caller). Throws RangeError
+ * naming what is unknown.
+ */
+export function parseFormulaId(id: string): { encoding: StepEncodingId; cost: CostEncodingId | null; parts: PartId[] | null } {
+  const [step, ...rest] = id.split("+");
+  if (!STEP_ENCODINGS.includes(step as StepEncodingId)) throw new RangeError(`unknown step encoding '${step}' (known: ${STEP_ENCODINGS.join(", ")})`);
+  if (rest.length === 0) return { encoding: step as StepEncodingId, cost: null, parts: null };
+  const cost = rest[0];
+  if (!COST_ENCODINGS.includes(cost as CostEncodingId)) throw new RangeError(`unknown cost encoding '${cost}' (known: ${COST_ENCODINGS.join(", ")})`);
+  return { encoding: step as StepEncodingId, cost: cost as CostEncodingId, parts: checkParts(rest.slice(1)) };
 }

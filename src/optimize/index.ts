@@ -7,17 +7,19 @@ import type { OptimizeOptions, OptimizeOutcome } from "./types.js";
 export { optimize, disposeOutcome } from "./driver.js";
 export { Budget, type StopReason } from "./budget.js";
 export {
+  boundSettings,
   buildFormula,
   canonicalCnfSha256,
   checkerCnf,
   costBitsFor,
+  encodeOptionsOf,
   formulaId,
+  parseFormulaId,
   writeCanonicalDimacs,
-  EXTENSIONS,
-  type ExtensionId,
   type Formula,
   type FormulaSpec,
 } from "./formula.js";
+export { DEFAULT_ENCODING, DEFAULT_PARTS, resolveEncoding, specFor, type EncodingChoice } from "./encoding-choice.js";
 export { estimateFormula, type SizeEstimate } from "./estimate.js";
 export { checkPlan, dropRedundant, toGroundIds, InternalError, type CheckedPlan } from "./plan-check.js";
 export { satProver } from "./prover.js";

@@ -1,13 +1,12 @@
 // What the optimizer takes and returns: options (limits, encoding, SAT engine), the outcome
 // the CLI prints, and the material a certificate is written from.
 import type { PreparedTask } from "../analyse/index.js";
-import type { StepEncodingId } from "../encode/index.js";
 import type { GroundOptions, Task } from "../ground/index.js";
 import type { HorizonReport } from "../horizon/index.js";
 import type { Model } from "../pddl/index.js";
 import type { LandmarkRecord } from "../search/index.js";
 import type { StopReason } from "./budget.js";
-import type { ExtensionId, Formula } from "./formula.js";
+import type { Formula } from "./formula.js";
 import type { CheckedPlan } from "./plan-check.js";
 import type { ProofChecker, ProofFile } from "./sat-session.js";
 
@@ -15,8 +14,12 @@ export type OutcomeStatus = "optimal" | "feasible" | "unsolvable" | "unknown";
 export type ProofHow = "horizon-unsat" | "lower-bound" | "relaxed-unreachable";
 
 export interface OptimizeOptions {
-  /** Step encoding of the proof formula (default forall-1). */
-  encoding?: StepEncodingId;
+  /**
+   * The formulas' encoding: a step encoding ("seq-1", "forall-1", "forall-2": default cost
+   * choice and parts) or a full formula id ("forall-1+cost-unary-1+reach-1+empty-steps-last-1").
+   * Default: DEFAULT_ENCODING with the cost encoding chosen by size and DEFAULT_PARTS.
+   */
+  encoding?: string;
   /** "builtin" (default) or "external:CMD". */
   sat?: string;
   /** Seconds for the whole run. */
@@ -30,8 +33,6 @@ export interface OptimizeOptions {
   onProgress?: (line: string) => void;
   /** Minimum milliseconds between progress lines (default 2000). */
   progressIntervalMs?: number;
-  /** Clause families added to the encoder's formula (default: all known). */
-  extensions?: ExtensionId[];
   /** Largest proof formula the optimizer builds, in clauses (default 30 million). */
   maxClauses?: number;
   /** Seconds GBFS may take for the first plan (default min(30, a tenth of the time limit)). */

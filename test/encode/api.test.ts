@@ -56,7 +56,7 @@ describe("encodePlanning", () => {
     expect(enc.describeVar(enc.numVars)).toMatch(/^compare#|^bound-bit#/);
     expect(() => enc.actionVar(0, 0)).toThrow(RangeError);
     expect(() => enc.factVar(4, 0)).toThrow(RangeError);
-    expect(enc.params).toEqual({ encoding: "forall-1", cost: "cost-adder-1", steps: 3, costBits: enc.params.costBits, mutexGroups: [] });
+    expect(enc.params).toEqual({ encoding: "forall-1", cost: "cost-adder-1", steps: 3, costBits: enc.params.costBits!, mutexGroups: [] });
     expect(enc.stats.clauses).toBe(enc.numClauses);
     const parts = Object.values(enc.stats.clausesByPart).reduce((s, x) => s + x, 0);
     expect(parts).toBe(enc.numClauses);
@@ -66,7 +66,7 @@ describe("encodePlanning", () => {
     const enc = encodePlanning(harbour, { encoding: "seq-1", steps: 3 });
     expect(enc.boundAssumptions(enc.maxSum)).toEqual([]);
     expect(enc.boundAssumptions(enc.maxSum + 100)).toEqual([]);
-    expect(enc.boundAssumptions(0).length).toBe(1 + enc.params.costBits);
+    expect(enc.boundAssumptions(0).length).toBe(1 + enc.params.costBits!);
     expect(() => enc.boundAssumptions(-1)).toThrow(RangeError);
     expect(() => enc.boundAssumptions(1.5)).toThrow(RangeError);
     const narrow = encodePlanning(harbour, { encoding: "seq-1", steps: 3, costBits: 2 });
@@ -88,7 +88,7 @@ describe("encodePlanning", () => {
     fc.assert(
       fc.property(withCosts(factoredSpecArb({ maxVars: 3, maxActions: 5 }).map(taskFromSpec), 5), fc.integer({ min: 1, max: 4 }), (task, T) => {
         const enc = encodePlanning(task, { encoding: "seq-1", steps: T });
-        const wide = encodePlanning(task, { encoding: "seq-1", steps: T, costBits: enc.params.costBits + 3 });
+        const wide = encodePlanning(task, { encoding: "seq-1", steps: T, costBits: enc.params.costBits! + 3 });
         const best = cheapestWithin(task, T); // source: reference exhaustive search
         const oracle = new Oracle(wide.toCnf());
         for (let B = 0; B <= Math.min(wide.maxSum, 12); B++) expect(oracle.solve(wide.boundAssumptions(B)) !== null).toBe(best !== null && best <= B);

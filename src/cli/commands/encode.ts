@@ -1,11 +1,10 @@
 // `plumbline encode DOMAIN PROBLEM --steps T`: the planning CNF the optimizer would solve, as
 // DIMACS on stdout or in a file. Wiring only; the work is in src/optimize/formula.ts and src/encode.
 import * as fs from "node:fs";
-import { Option, type Command } from "commander";
+import type { Command } from "commander";
 import { prepareTask } from "../../analyse/index.js";
-import { STEP_ENCODINGS, type StepEncodingId } from "../../encode/index.js";
 import { groundFiles } from "../../ground/index.js";
-import { buildFormula, costBitsFor, EXTENSIONS, formulaId, OPTIMIZE_GROUNDING, writeCanonicalDimacs, type FormulaSpec } from "../../optimize/index.js";
+import { boundSettings, buildFormula, DEFAULT_ENCODING, formulaId, OPTIMIZE_GROUNDING, resolveEncoding, specFor, writeCanonicalDimacs } from "../../optimize/index.js";
 import { PlumblineError } from "../../util/errors.js";
 import { tempNameFor } from "../../util/files.js";
 import { withCommonOptions, type CliContext } from "../context.js";
@@ -16,7 +15,7 @@ interface EncodeCliOptions {
   verbose?: boolean;
   steps?: string;
   costBelow?: string;
-  encoding?: StepEncodingId;
+  encoding?: string;
   output?: string;
   plain?: boolean;
 }
@@ -41,8 +40,13 @@ export function registerEncode(program: Command, ctx: CliContext): void {
       .argument("<problem>", "PDDL problem file")
       .requiredOption("--steps <T>", "horizon: number of steps (every plan of at most T actions fits)")
       .option("--cost-below <C>", "add unit clauses for 'plan cost ≤ C − 1' (without it: any plan within T steps)")
-      .addOption(new Option("--encoding <id>", "step encoding: forall-1 (default), seq-1 or forall-2").choices([...STEP_ENCODINGS]).default("forall-1"))
-      .option("--plain", "only the encoder's clauses, without the optimizer's extra clause families (empty steps last)")
+      .option(
+        "--encoding <id>",
+        `step encoding seq-1, forall-1 or forall-2 (default ${DEFAULT_ENCODING}; the cost encoding is then chosen by size and the parts reach-1 and\n` +
+          "empty-steps-last-1 are included, as solve does), or a full formula id such as forall-1+cost-unary-1+reach-1+empty-steps-last-1\n" +
+          "(as a certificate records it; forall-1+cost-adder-1+empty-steps-last-1 is what solve built before cost-unary-1 and reach-1 existed)",
+      )
+      .option("--plain", "leave out the optional parts (reach-1 pruning, empty-steps-last-1 ordering): step encoding and cost encoding only")
       .option("-o, --output <file>", "write the CNF to this file (default: stdout)"),
   ).action((domain: string, problem: string, opts: EncodeCliOptions) => {
     ctx.configure(opts);
@@ -50,17 +54,17 @@ export function registerEncode(program: Command, ctx: CliContext): void {
     const below = wholeNumber("--cost-below", opts.costBelow, 1);
     const { task } = groundFiles(domain, problem, OPTIMIZE_GROUNDING);
     const prepared = prepareTask(task);
-    const spec: FormulaSpec = {
-      encoding: opts.encoding ?? "forall-1",
+    const choice = resolveEncoding(opts.encoding);
+    if (opts.plain) choice.parts = [];
+    const spec = specFor(prepared.task, choice, {
       steps,
-      costBits: below === undefined ? 0 : costBitsFor(below),
+      ...boundSettings(below ?? Infinity),
       mutexGroups: prepared.variables.variables.filter((v) => v.facts.length > 1).map((v) => [...v.facts]),
-      extensions: opts.plain ? [] : [...EXTENSIONS],
-    };
+    });
     const f = buildFormula(prepared.task, spec);
     const units = f.boundUnits(below === undefined ? Infinity : below - 1);
     const comments = [
-      `plumbline ${formulaId(spec)} steps=${steps} costBits=${spec.costBits} mutexGroups=${spec.mutexGroups.length}${below === undefined ? "" : ` query: cost <= ${below - 1}`}`,
+      `plumbline ${formulaId(spec)} steps=${steps} ${spec.cost === "cost-unary-1" ? `costCap=${spec.costCap}` : `costBits=${spec.costBits}`} mutexGroups=${spec.mutexGroups.length}${below === undefined ? "" : ` query: cost <= ${below - 1}`}`,
       `task after pruning: ${prepared.task.facts.length} facts, ${prepared.task.actions.length} actions; fact f at time t = 1 + t*${prepared.task.facts.length} + f, action a in step s = ${1 + (steps + 1) * prepared.task.facts.length} + (s-1)*${prepared.task.actions.length} + a`,
     ];
     const header = comments.map((c) => `c ${c}\n`).join("");

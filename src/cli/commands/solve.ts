@@ -1,9 +1,8 @@
 // `plumbline solve DOMAIN PROBLEM`: a cost-optimal plan with its proof, optionally a plan file
 // and a certificate directory. Wiring only; the work is in src/optimize and src/certify.
-import { Option, type Command } from "commander";
+import type { Command } from "commander";
 import { dratChecker, writeCertificate } from "../../certify/index.js";
-import { STEP_ENCODINGS, type StepEncodingId } from "../../encode/index.js";
-import { disposeOutcome, optimizeFiles, type OptimizeOutcome } from "../../optimize/index.js";
+import { DEFAULT_ENCODING, disposeOutcome, optimizeFiles, resolveEncoding, type OptimizeOutcome } from "../../optimize/index.js";
 import { PlumblineError } from "../../util/errors.js";
 import { writeFileAtomic } from "../../util/files.js";
 import { withCommonOptions, type CliContext } from "../context.js";
@@ -16,7 +15,7 @@ interface SolveCliOptions {
   certificate?: string;
   timeLimit?: string;
   memoryLimit?: string;
-  encoding?: StepEncodingId;
+  encoding?: string;
   sat?: string;
 }
 
@@ -59,12 +58,18 @@ export function registerSolve(program: Command, ctx: CliContext): void {
       .option("--certificate <dir>", "write a certificate directory (re-checkable with 'plumbline audit') when optimality or unsolvability is proven")
       .option("--time-limit <seconds>", "stop after this many seconds with the best plan so far (status feasible or unknown, exit 3)")
       .option("--memory-limit <MB>", "stop when resident memory passes this many MB, and build no formula estimated to need more")
-      .addOption(new Option("--encoding <id>", "step encoding of the proof formula: forall-1 (parallel steps, default), seq-1 (one action per step) or forall-2").choices([...STEP_ENCODINGS]).default("forall-1"))
+      .option(
+        "--encoding <id>",
+        `encoding of the SAT formulas: a step encoding — forall-1 (parallel steps, default ${DEFAULT_ENCODING}), seq-1 (one action per step) or forall-2 —\n` +
+          "with the cost encoding chosen by size and the parts reach-1 and empty-steps-last-1; or a full formula id such as\n" +
+          "forall-1+cost-unary-1+reach-1+empty-steps-last-1 (step+cost+parts, as certificates record it)",
+      )
       .option("--sat <solver>", "builtin (default), or external:CMD — a DIMACS solver run once per query ('{cnf}' and '{proof}' stand for the files); its DRAT proof is checked, and without one the final query is re-run with the built-in solver", "builtin"),
   ).action(async (domain: string, problem: string, opts: SolveCliOptions) => {
     ctx.configure(opts);
     const timeLimit = positive("--time-limit", opts.timeLimit);
     const memoryLimitMb = positive("--memory-limit", opts.memoryLimit);
+    resolveEncoding(opts.encoding); // a usage error before any work
     const sat = opts.sat ?? "builtin";
     if (sat !== "builtin" && !(sat.startsWith("external:") && sat.length > "external:".length)) throw new PlumblineError("usage", `--sat expects builtin or external:CMD, found '${sat}'`);
     const out = await optimizeFiles(domain, problem, {

@@ -1,0 +1,91 @@
+// The cost part of a planning CNF: cost-adder-1 (binary sum + comparator on bound bits) or
+// cost-unary-1 (saturating prefix counter), behind one interface for bound assumptions.
+import type { Task } from "../ground/task.js";
+import { bitLength, buildAdder } from "./adder.js";
+import type { CnfBuilder } from "./cnf.js";
+import { comparatorAssumptions, emitComparator } from "./comparator.js";
+import type { Possible } from "./cost-inputs.js";
+import type { CostEncodingId } from "./ids.js";
+import type { Layout } from "./layout.js";
+import type { StepRules } from "./step-rules.js";
+import { buildUnary, unaryAssumptions, type UnaryInput } from "./unary.js";
+
+export interface CostPart {
+  /** Sum bits (cost-adder-1) or outputs "sum ≥ j", j = 1..cap (cost-unary-1); 0 = constant false. */
+  outputs: number[];
+  maxSum: number;
+  /** The largest B that `assumptions` accepts below maxSum. */
+  maxRepresentable: number;
+  assumptions(B: number): number[];
+  /** Third DIMACS comment line. */
+  comment: string;
+  /** "costBits" or "costCap", with its value, for the first comment line and the params. */
+  setting: { name: "costBits" | "costCap"; value: number };
+  stats: Record<string, number>;
+}
+
+/**
+ * cost-unary-1 inputs: for s = 1..T, for each step-exclusive group (rules.unaryGroups(), in
+ * order): its members that may be taken in step s, ordered by (cost, id), as literals A(s,a)
+ * with values cost(a). Groups with no such member give no input.
+ */
+export function unaryInputs(task: Task, rules: StepRules, L: Layout, possible?: Possible): UnaryInput[] {
+  const groups = rules.unaryGroups().map((g) => [...g].sort((x, y) => task.actions[x].cost - task.actions[y].cost || x - y));
+  const out: UnaryInput[] = [];
+  for (let s = 1; s <= L.steps; s++) {
+    for (const g of groups) {
+      const members = possible ? g.filter((a) => possible(s, a)) : g;
+      if (members.length === 0) continue;
+      out.push({ values: members.map((a) => task.actions[a].cost), lits: members.map((a) => L.action(s, a)) });
+    }
+  }
+  return out;
+}
+
+export interface CostOptions {
+  id: CostEncodingId;
+  costBits?: number;
+  costCap?: number;
+}
+
+export function emitCostPart(cnf: CnfBuilder, task: Task, rules: StepRules, L: Layout, o: CostOptions, possible: Possible | undefined, part: (name: string) => void): CostPart {
+  if (o.id === "cost-unary-1") {
+    const inputs = unaryInputs(task, rules, L, possible);
+    const maxSum = inputs.reduce((m, x) => m + x.values[x.values.length - 1], 0);
+    const cap = o.costCap ?? maxSum;
+    part("cost-inputs");
+    const r = buildUnary(cnf, inputs, cap);
+    part("unary");
+    return {
+      outputs: r.outputs,
+      maxSum: r.maxSum,
+      maxRepresentable: cap - 1,
+      assumptions: (B) => unaryAssumptions(r, B),
+      comment: `bound unary outputs=${r.outputs.join(",") || "-"}`,
+      setting: { name: "costCap", value: cap },
+      stats: { unaryLayers: r.layers, unaryInputs: inputs.length },
+    };
+  }
+  const costGroups = rules.costGroups(cnf, L, possible);
+  part("cost-inputs");
+  const adder = buildAdder(cnf, costGroups);
+  part("adder");
+  const m = o.costBits ?? bitLength(adder.maxSum);
+  if (!Number.isInteger(m) || m < 0 || m > 52) throw new RangeError(`encode: costBits must be an integer in 0..52, got ${m}`);
+  const cmp = emitComparator(cnf, adder.sum, m);
+  part("comparator");
+  const maxRepresentable = 2 ** m - 1;
+  return {
+    outputs: adder.sum,
+    maxSum: adder.maxSum,
+    maxRepresentable,
+    assumptions(B) {
+      if (B >= adder.maxSum) return [];
+      if (B > maxRepresentable) throw new RangeError(`encode: bound ${B} needs more than costBits=${m} bits`);
+      return comparatorAssumptions(cmp, B);
+    },
+    comment: `bound enable=${cmp.enable} bits=${cmp.boundBits.join(",") || "-"}`,
+    setting: { name: "costBits", value: m },
+    stats: { fullAdders: adder.fullAdders, halfAdders: adder.halfAdders },
+  };
+}
