@@ -8,8 +8,11 @@
 // C" by each method, L = fewest actions among cost-optimal plans (exact, from the explicit state
 // graph; "≥" marks an A* plan's length when the graph is too large, which flatters the ratio),
 // H/L, H*/L where H* is the horizon for C = optimum + 1 (a completeness threshold must then
-// admit an optimal plan, so H*/L < 1 would be a soundness bug), and Hs/L where Hs is the horizon
-// for C without the exact explicit method (structural bounds only).
+// admit an optimal plan, so H*/L < 1 would be a soundness bug), Hs/L where Hs is the horizon
+// for C without the exact explicit method, and Hg/L where Hg uses no explicit state space at all
+// (cost counting, zero-cost segments and compositional projections only: the general bounds),
+// and Hs*/L: the horizon without the exact explicit method for C = optimum + 1 (what the final
+// proof of an optimal plan needs, once the optimizer has found it).
 import { mkdirSync, readdirSync, statSync } from "node:fs";
 import { basename, dirname, join, resolve } from "node:path";
 import { groundFiles } from "../../src/ground/index.js";
@@ -45,6 +48,13 @@ interface Row {
   structural: string | null;
   structuralWinner: string | null;
   ratioStructural: number | null;
+  /** Horizon for C by the general bounds only (no explicit state space: no exact search, no reachable-state count). */
+  general: string | null;
+  generalWinner: string | null;
+  ratioGeneral: number | null;
+  /** Horizon without the exact explicit method for C = optimum + 1. */
+  structuralAtOptimum: string | null;
+  ratioStructuralAtOptimum: number | null;
   groundSeconds: number;
   horizonSeconds: number;
   structuralSeconds: number;
@@ -133,6 +143,11 @@ function runInstance(inst: Instance, timeLimit: number, maxStates: number): Row 
     structural: null,
     structuralWinner: null,
     ratioStructural: null,
+    general: null,
+    generalWinner: null,
+    ratioGeneral: null,
+    structuralAtOptimum: null,
+    ratioStructuralAtOptimum: null,
     groundSeconds,
     horizonSeconds: 0,
     structuralSeconds: 0,
@@ -154,16 +169,23 @@ function runInstance(inst: Instance, timeLimit: number, maxStates: number): Row 
   row.structuralSeconds = (performance.now() - t1) / 1000;
   row.structural = st.horizonText;
   row.structuralWinner = st.winner;
+  const gen = computeHorizon(task, first.cost!, { maxOptimalStates: 0, maxExplicitStates: 1 });
+  row.general = gen.horizonText;
+  row.generalWinner = gen.winner;
   const opt = shortestOptimal(task, maxStates, Date.now() + timeLimit * 1000);
   row.optimum = opt.cost;
   row.length = opt.length;
   row.lengthSource = opt.source;
   if (opt.length !== null && opt.length > 0 && Number.isFinite(rep.horizon)) row.ratio = rep.horizon / opt.length;
   if (opt.length !== null && opt.length > 0 && Number.isFinite(st.horizon)) row.ratioStructural = st.horizon / opt.length;
+  if (opt.length !== null && opt.length > 0 && Number.isFinite(gen.horizon)) row.ratioGeneral = gen.horizon / opt.length;
   if (opt.cost !== null) {
     const atOpt = computeHorizon(task, opt.cost + 1);
     row.horizonAtOptimum = atOpt.horizonText;
     if (opt.length !== null && opt.length > 0 && Number.isFinite(atOpt.horizon)) row.ratioAtOptimum = atOpt.horizon / opt.length;
+    const stOpt = computeHorizon(task, opt.cost + 1, { maxOptimalStates: 0 });
+    row.structuralAtOptimum = stOpt.horizonText;
+    if (opt.length !== null && opt.length > 0 && Number.isFinite(stOpt.horizon)) row.ratioStructuralAtOptimum = stOpt.horizon / opt.length;
   }
   return row;
 }
@@ -178,9 +200,10 @@ function main(): void {
   const instances = findInstances(dir);
   if (instances.length === 0) throw new Error(`no instances under ${dir}`);
   const rows: Row[] = [];
-  const header = ["instance", "facts", "acts", "zero", "C", "opt", "L", "cost", "zero-cost", "compos.", "exact", "H", "winner", "H/L", "H*/L", "Hs", "Hs/L", "sec", "sec s"];
-  const widths = [26, 6, 6, 5, 5, 5, 5, 7, 9, 9, 6, 7, 16, 6, 6, 7, 6, 5, 5];
-  const line = (cells: string[]) => cells.map((c, i) => (i === 0 || i === 12 ? c.padEnd(widths[i]) : c.padStart(widths[i]))).join(" ");
+  const header = ["instance", "facts", "acts", "zero", "C", "opt", "L", "cost", "zero-cost", "compos.", "exact", "H", "winner", "H/L", "H*/L", "Hs", "Hs/L", "Hs winner", "Hg", "Hg/L", "Hg winner", "Hs*/L", "sec", "sec s"];
+  const widths = [26, 6, 6, 5, 5, 5, 5, 7, 9, 9, 6, 7, 16, 6, 6, 7, 6, 13, 7, 6, 13, 6, 5, 5];
+  const left = new Set([0, 12, 17, 20]);
+  const line = (cells: string[]) => cells.map((c, i) => (left.has(i) ? c.padEnd(widths[i]) : c.padStart(widths[i]))).join(" ");
   console.log(`horizon tightness on ${instances.length} instances under ${dir} (first plan by GBFS, ${timeLimit} s limits)`);
   console.log(line(header));
   for (const inst of instances) {
@@ -212,6 +235,11 @@ function main(): void {
         row.ratioAtOptimum === null ? "-" : row.ratioAtOptimum.toFixed(2),
         short(row.structural),
         row.ratioStructural === null ? "-" : row.ratioStructural.toFixed(2),
+        row.structuralWinner ?? "-",
+        short(row.general),
+        row.ratioGeneral === null ? "-" : row.ratioGeneral.toFixed(2),
+        row.generalWinner ?? "-",
+        row.ratioStructuralAtOptimum === null ? "-" : row.ratioStructuralAtOptimum.toFixed(2),
         row.horizonSeconds.toFixed(1),
         row.structuralSeconds.toFixed(1),
       ]) + (row.note ? `  (${row.note})` : ""),
@@ -223,20 +251,32 @@ function main(): void {
   const gm = geomean(ratios);
   const gmOpt = geomean(atOpt);
   const gmStructural = geomean(structural);
+  const general = rows.flatMap((r) => (r.ratioGeneral === null ? [] : [r.ratioGeneral]));
+  const gmGeneral = geomean(general);
+  const structuralAtOpt = rows.flatMap((r) => (r.ratioStructuralAtOptimum === null ? [] : [r.ratioStructuralAtOptimum]));
+  const gmStructuralAtOpt = geomean(structuralAtOpt);
   const below = rows.filter((r) => r.ratioAtOptimum !== null && r.ratioAtOptimum < 1 && r.lengthSource === "exact");
   const groundTotal = rows.reduce((s, r) => s + r.groundSeconds, 0);
   const horizonTotal = rows.reduce((s, r) => s + r.horizonSeconds, 0);
   console.log("");
   console.log(`geometric mean H/L  = ${gm === null ? "-" : gm.toFixed(2)} over ${ratios.length} instances (target ≤ 4)`);
   console.log(`geometric mean H*/L = ${gmOpt === null ? "-" : gmOpt.toFixed(2)} over ${atOpt.length} instances (H* for C = optimum + 1; must be ≥ 1)`);
-  console.log(`geometric mean Hs/L = ${gmStructural === null ? "-" : gmStructural.toFixed(2)} over ${structural.length} instances (structural methods only, no explicit search)`);
+  console.log(`geometric mean Hs/L = ${gmStructural === null ? "-" : gmStructural.toFixed(2)} over ${structural.length} instances (without the exact explicit method)`);
+  console.log(`geometric mean Hg/L = ${gmGeneral === null ? "-" : gmGeneral.toFixed(2)} over ${general.length} instances (general bounds only: no explicit state space at all)`);
+  console.log(`geometric mean Hs*/L = ${gmStructuralAtOpt === null ? "-" : gmStructuralAtOpt.toFixed(2)} over ${structuralAtOpt.length} instances (without the exact explicit method, C = optimum + 1)`);
+  const wins = (key: "winner" | "structuralWinner" | "generalWinner") => {
+    const n = new Map<string, number>();
+    for (const r of rows) if (r[key]) n.set(r[key]!, (n.get(r[key]!) ?? 0) + 1);
+    return [...n].sort((a, b) => b[1] - a[1] || (a[0] < b[0] ? -1 : 1)).map(([m, c]) => `${m} ${c}`).join(", ");
+  };
+  console.log(`winning methods: H: ${wins("winner")}; Hs: ${wins("structuralWinner")}; Hg: ${wins("generalWinner")}`);
   const maxSeconds = rows.reduce((m, r) => Math.max(m, r.horizonSeconds), 0);
   console.log(`horizon computation: ${horizonTotal.toFixed(1)} s in total, at most ${maxSeconds.toFixed(1)} s for one instance`);
   console.log(`horizon time / grounding time = ${groundTotal > 0 ? (horizonTotal / groundTotal).toFixed(2) : "-"} (same run)`);
   if (below.length > 0) console.log(`SOUNDNESS ALARM: H*/L < 1 on ${below.map((r) => r.instance).join(", ")}`);
   if (out) {
     mkdirSync(dirname(out), { recursive: true });
-    writeFileAtomic(out, JSON.stringify({ dir, timeLimit, maxStates, geometricMean: gm, geometricMeanAtOptimum: gmOpt, geometricMeanStructural: gmStructural, rows }, null, 2) + "\n");
+    writeFileAtomic(out, JSON.stringify({ dir, timeLimit, maxStates, geometricMean: gm, geometricMeanAtOptimum: gmOpt, geometricMeanStructural: gmStructural, geometricMeanGeneral: gmGeneral, geometricMeanStructuralAtOptimum: gmStructuralAtOpt, rows }, null, 2) + "\n");
     console.log(`rows written to ${out}`);
   }
   if (below.length > 0) process.exitCode = 1;

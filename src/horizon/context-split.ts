@@ -112,8 +112,6 @@ export function splitByContext(
     }
     return out;
   };
-  const sTrue: number[][] = [];
-  for (let i = 0; i < nS; i++) sTrue.push(trueOf(own.stateSet, i, sFacts));
   const has = (s: Uint32Array, l: number) => (s[l >>> 5] & (1 << (l & 31))) !== 0;
   const all = (s: Uint32Array, ls: number[]) => ls.every((l) => has(s, l));
   const none = (s: Uint32Array, ls: number[]) => ls.every((l) => !has(s, l));
@@ -149,10 +147,15 @@ export function splitByContext(
       mask(c.add, addM, e * W);
       mask(c.del, delM, e * W);
     });
+    // S facts h² rules out beside γ: an S-value is a start exactly when it holds none of them
+    const forbidden = new Uint32Array(W);
+    if (usePairs) sFacts.forEach((f, l) => gTrue.every((h) => pairs.together(f, h)) || (forbidden[l >>> 5] |= 1 << (l & 31)));
     const states = new PackedStateSet(W, 1024);
     for (let i = 0; i < nS; i++) {
-      if (usePairs && !sTrue[i].every((f) => gTrue.every((h) => pairs.together(f, h)))) continue;
-      states.add(own.stateSet.view(i));
+      const y = own.stateSet.view(i);
+      let ok = true;
+      for (let w = 0; w < W && ok; w++) ok = (y[w] & forbidden[w]) === 0;
+      if (ok) states.add(y);
     }
     starts += states.size;
     const from: number[] = [];

@@ -38,7 +38,10 @@ export interface BoundContext {
 
 /**
  * Contexts are cached per Task object and options: everything in them is a function of those,
- * and the optimizer asks for horizons of the same task at several costs.
+ * and the optimizer asks for horizons of the same task at several costs. The cached parts do
+ * not depend on C or on the order of requests (explicit(cap) answers as a fresh exploration up
+ * to `cap` would), so an auditor computing one C from scratch gets the same numbers
+ * (test/horizon/soundness.test.ts, "determinism").
  */
 const contexts = new WeakMap<Task, Map<string, BoundContext>>();
 

@@ -15,6 +15,11 @@ import type { PatternExcess } from "./patterns.js";
  * n ≤ floor((C − 1 − h) / u). The same holds for every plan derived from it that is no dearer,
  * which is what the horizon methods use. With no plan of cost < C the bound is vacuous; it is
  * then reported as 0.
+ * Zero-cost actions: e = 0 for them (and for actions costing exactly u), so a landmark or a
+ * projected path made of them adds nothing to h; they are not counted in n either, which is why
+ * the zero-cost method bounds them separately. Negative conditions and conditional effects:
+ * landmark-cut works on the delete relaxation with negative conditions dropped and every
+ * conditional effect allowed to fire (search/relaxed.ts) — a relaxation of every real plan.
  */
 export interface PositiveCount {
   /** floor((C − 1 − h) / u), at least 0. */

@@ -55,6 +55,23 @@ describe("plumbline horizon", () => {
     expect(inf.json().winner).not.toBe("cost");
   });
 
+  it("turns the exact search off with --max-optimal-states 0 and names every number in plain text", async () => {
+    const off = await cli(["horizon", D, P, "--upper-bound", "2", "--max-optimal-states", "0", "--json"]);
+    expect(off.code).toBe(0);
+    const exact = off.json().methods.find((m: { method: string }) => m.method === "explicit-optimal");
+    expect(exact.value).toBeNull();
+    expect(exact.derivation.notApplicable).toMatch(/disabled/);
+    // still a completeness threshold: the only plan of cost < 2 has 6 actions (worked by hand)
+    expect(off.json().horizon).toBeGreaterThanOrEqual(6);
+    const on = await cli(["horizon", D, P, "--upper-bound", "2"]);
+    expect(on.stdout).toMatch(/explicit-optimal\s+6\s+fewest actions among plans of the optimal cost 1/); // worked by hand
+    expect(on.stdout).not.toMatch(/undefined/);
+    const text = await cli(["horizon", D, P, "--upper-bound", "2", "--max-optimal-states", "0"]);
+    expect(text.stdout).toMatch(/zero-cost\s+\d+\s+k = \d+ positive-cost actions/);
+    expect(text.stdout).not.toMatch(/undefined/);
+    expect((await cli(["horizon", D, P, "--max-optimal-states", "-1"])).code).toBe(2);
+  });
+
   it("rejects a bad --upper-bound with exit code 2 and no stack trace", async () => {
     const r = await cli(["horizon", D, P, "--upper-bound", "cheap"]);
     expect(r.code).toBe(2);

@@ -117,3 +117,47 @@ export function transitionTaskArb(o: { minVars?: number; maxVars?: number; maxDo
     }))
     .map(taskFromSpec);
 }
+
+/**
+ * Factored tasks where zero-cost moves of one variable (values 2–4) are gated by "context"
+ * variables that only positive-cost actions change — the shape the zero-cost bound splits by
+ * context value when the projection onto the variable and its context is too large.
+ */
+export function gatedTaskArb(o: { maxContext?: number; maxCost?: number } = {}): fc.Arbitrary<Task> {
+  return fc
+    .record({ s: fc.integer({ min: 2, max: 4 }), ctx: fc.array(fc.integer({ min: 2, max: 3 }), { minLength: 1, maxLength: o.maxContext ?? 2 }) })
+    .chain(({ s, ctx }) => {
+      const domains = [s, ...ctx];
+      const val = (v: number) => fc.integer({ min: 0, max: domains[v] - 1 });
+      const ctxVal = fc.integer({ min: 1, max: ctx.length }).chain((v) => fc.tuple(fc.constant(v), val(v)));
+      const cost = fc.integer({ min: 1, max: o.maxCost ?? 3 });
+      const move = fc.record({ from: fc.option(val(0), { freq: 3 }), to: val(0), gate: fc.option(ctxVal, { freq: 5 }), cost: fc.constant(0) });
+      const setCtx = fc.record({ v: ctxVal, from: fc.option(fc.nat(), { freq: 2 }), cost });
+      const positiveMove = fc.record({ from: fc.option(val(0), { freq: 2 }), to: val(0), gate: fc.constant(null), cost });
+      return fc.record({
+        domains: fc.constant(domains),
+        init: fc.tuple(...domains.map((_, v) => val(v))),
+        goal: fc.tuple(val(0), fc.option(ctxVal, { freq: 2 })),
+        moves: fc.array(fc.oneof({ arbitrary: move, weight: 4 }, { arbitrary: positiveMove, weight: 1 }), { minLength: 2, maxLength: 7 }),
+        sets: fc.array(setCtx, { minLength: 1, maxLength: 4 }),
+      });
+    })
+    .map((r): FactoredSpec => ({
+      domains: r.domains,
+      init: [...r.init],
+      goal: [[0, r.goal[0] === r.init[0] ? (r.goal[0] + 1) % r.domains[0] : r.goal[0]] as [number, number], ...(r.goal[1] === null ? [] : [r.goal[1]])],
+      actions: [
+        ...r.moves.map((m) => ({
+          pre: [...(m.from === null ? [] : [[0, m.from] as [number, number]]), ...(m.gate === null ? [] : [m.gate])],
+          eff: [[0, m.to] as [number, number]],
+          cost: m.cost,
+        })),
+        ...r.sets.map((x) => ({
+          pre: x.from === null ? [] : [[x.v[0], x.from % r.domains[x.v[0]]] as [number, number]],
+          eff: [x.v],
+          cost: x.cost,
+        })),
+      ],
+    }))
+    .map(taskFromSpec);
+}

@@ -18,6 +18,7 @@ interface HorizonCliOptions {
   relevance?: boolean;
   maxProjectionStates?: string;
   maxExplicitStates?: string;
+  maxOptimalStates?: string;
 }
 
 export function registerHorizon(program: Command, ctx: CliContext): void {
@@ -34,11 +35,16 @@ export function registerHorizon(program: Command, ctx: CliContext): void {
       .option("--time-limit <seconds>", "time allowed for the first-plan search when --upper-bound is not given")
       .option("--no-relevance", "do not prune actions and facts irrelevant to the goal before bounding")
       .option("--max-projection-states <n>", `states explored per projection before using domain sizes (default ${HORIZON_DEFAULTS.maxProjectionStates})`)
-      .option("--max-explicit-states <n>", `reachable states explored for the explicit method (default ${HORIZON_DEFAULTS.maxExplicitStates})`),
+      .option("--max-explicit-states <n>", `reachable states explored for the explicit method (default ${HORIZON_DEFAULTS.maxExplicitStates})`)
+      .option(
+        "--max-optimal-states <n>",
+        `states the exact search for the fewest actions among cheapest plans may store; 0 turns that method off (default ${HORIZON_DEFAULTS.maxOptimalStates})`,
+      ),
   ).action((domain: string, problem: string, opts: HorizonCliOptions) => {
     ctx.configure(opts);
     const maxProjectionStates = positiveOption("--max-projection-states", opts.maxProjectionStates, HORIZON_DEFAULTS.maxProjectionStates);
     const maxExplicitStates = positiveOption("--max-explicit-states", opts.maxExplicitStates, HORIZON_DEFAULTS.maxExplicitStates);
+    const maxOptimalStates = opts.maxOptimalStates === "0" ? 0 : positiveOption("--max-optimal-states", opts.maxOptimalStates, HORIZON_DEFAULTS.maxOptimalStates);
     let upper: number | null = null;
     if (opts.upperBound !== undefined) {
       upper = /^(inf|infinity)$/i.test(opts.upperBound) ? Number.POSITIVE_INFINITY : Number(opts.upperBound);
@@ -63,7 +69,7 @@ export function registerHorizon(program: Command, ctx: CliContext): void {
       }
       ctx.note(`upper cost C = ${upper} from ${source}`);
     }
-    const report = computeHorizon(task, upper, { relevance: opts.relevance !== false, maxProjectionStates, maxExplicitStates });
+    const report = computeHorizon(task, upper, { relevance: opts.relevance !== false, maxProjectionStates, maxExplicitStates, maxOptimalStates });
     ctx.result({ domain: task.domainName, problem: task.problemName, upperCostSource: source, firstPlan, ...horizonReportJson(report) });
     ctx.out(formatReport(report, source));
   });
@@ -80,9 +86,15 @@ function why(m: MethodResult): string {
   if (d.note) return String(d.note);
   switch (m.method) {
     case "cost":
-      return `floor((${d.C} - 1) / ${d.c_min})`;
-    case "zero-cost":
-      return `k + (k+1)·l0 with k = ${d.k}, l0 = ${d.l0} (${d.l0Source}); ${d.zeroCostActions} zero-cost actions`;
+      return `floor((${d.C} - 1 - ${d.excessLowerBound}) / ${d.c_min}): at most that many actions, each costing at least ${d.c_min}, beyond the excess ${d.excessLowerBound} every plan pays`;
+    case "zero-cost": {
+      const layered = d.layered as { value?: unknown } | undefined;
+      const explicit = d.explicit as { value?: unknown; l0?: unknown } | undefined;
+      const viaL0 = explicit?.value !== undefined ? `, k + (k+1)·${explicit.l0} = ${explicit.value} (exact zero-cost distances)` : "";
+      return `k = ${d.k} positive-cost actions + zero-cost actions per SCC = ${layered?.value}${viaL0}; ${d.zeroCostActions} zero-cost actions`;
+    }
+    case "explicit-optimal":
+      return `fewest actions among plans of the optimal cost ${d.optimalCost} (exact search, ${d.statesStored} states stored)`;
     case "compositional": {
       const contributing = (d.contributing as unknown[]).length;
       return `${d.components} SCCs (${contributing} contribute), ${d.projectionsExplored} projections explored, ${d.projectionsAbandoned} abandoned`;
