@@ -1,11 +1,10 @@
-// Golden CNFs: each encoding on each fixture must reproduce encodings/golden/<id>.<fixture>.cnf
-// byte for byte (changing an encoding is deliberate: new id or new golden), regeneration is
-// deterministic, and the golden files themselves mean what the fixtures say.
+// Golden CNFs: each formula id (step × cost encoding × parts) on each fixture must reproduce its
+// golden file byte for byte (changing an encoding is deliberate: new id or new golden),
+// regeneration is deterministic, and the golden files themselves mean what the fixtures say.
 import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
-import { STEP_ENCODINGS } from "../../src/encode/index.js";
 import { cheapestWithin } from "../support/reference.js";
-import { encodeFixture, goldenFile, loadFixtures } from "./golden.js";
+import { encodeFixture, GOLDEN_FORMULAS, goldenFile, loadFixtures } from "./golden.js";
 import { Oracle } from "./oracle.js";
 
 const fixtures = loadFixtures();
@@ -33,23 +32,40 @@ function readDimacs(text: string): { numVars: number; clauses: Int32Array[]; com
 // free the crane (0), lift crate2 (1) = 2 in 3 steps. source: worked by hand from fixture.json
 const handOptimum: Record<string, number> = { harbour: 6, "crane-yard": 2 };
 
+/** "cost ≤ B" as assumption literals, read from the golden file's third comment line alone. */
+function boundReader(bound: string): (B: number) => number[] {
+  const unary = /^bound unary outputs=(.*)$/.exec(bound);
+  if (unary) {
+    // outputs o_1..o_K ("cost ≥ j"); 0 = constant false, "-" = none
+    const outs = unary[1] === "-" ? [] : unary[1].split(",").map(Number);
+    return (B) => (B < outs.length && outs[B] !== 0 ? [-outs[B]] : []);
+  }
+  const enable = Number(/enable=(\d+)/.exec(bound)![1]);
+  const bits = /bits=([\d,]+)/.exec(bound)![1].split(",").map(Number);
+  return (B) => [enable, ...bits.map((b, j) => (Math.floor(B / 2 ** j) % 2 ? b : -b))];
+}
+
 describe("golden CNFs", () => {
+  it("cover every step encoding × cost encoding × part set (24 formulas)", () => {
+    expect(GOLDEN_FORMULAS.length).toBe(24);
+    expect(new Set(GOLDEN_FORMULAS.map((f) => f.id)).size).toBe(24);
+  });
+
   for (const fx of fixtures) {
-    for (const id of STEP_ENCODINGS) {
-      it(`${id} on ${fx.name} equals its golden file byte for byte`, () => {
-        const golden = readFileSync(goldenFile(id, fx), "utf8");
-        expect(encodeFixture(id, fx).toDimacs()).toBe(golden);
+    for (const f of GOLDEN_FORMULAS) {
+      it(`${f.id} on ${fx.name} equals its golden file byte for byte`, () => {
+        const golden = readFileSync(goldenFile(f, fx), "utf8");
+        expect(encodeFixture(f, fx).toDimacs()).toBe(golden);
       });
 
-      it(`${id} on ${fx.name}: the golden file has the fixture's optimum`, () => {
-        const { numVars, clauses, comments } = readDimacs(readFileSync(goldenFile(id, fx), "utf8"));
-        const bound = comments.find((c) => c.startsWith("bound "))!;
-        const enable = Number(/enable=(\d+)/.exec(bound)![1]);
-        const bits = /bits=([\d,]+)/.exec(bound)![1].split(",").map(Number);
-        const assume = (B: number) => [enable, ...bits.map((b, j) => (Math.floor(B / 2 ** j) % 2 ? b : -b))];
+      it(`${f.id} on ${fx.name}: the golden file has the fixture's optimum`, () => {
+        const { numVars, clauses, comments } = readDimacs(readFileSync(goldenFile(f, fx), "utf8"));
+        expect(comments[0].startsWith(`plumbline ${f.id} `)).toBe(true);
+        const assume = boundReader(comments.find((c) => c.startsWith("bound "))!);
         const oracle = new Oracle({ numVars, clauses });
         const opt = handOptimum[fx.name];
         expect(cheapestWithin(fx.task, fx.steps)).toBe(opt); // source: reference exhaustive search
+        // source: logic-solver (MiniSat) on the golden text; optimum worked by hand (above)
         expect(oracle.solve(assume(opt))).not.toBeNull();
         expect(oracle.solve(assume(opt - 1))).toBeNull();
       });
@@ -58,7 +74,7 @@ describe("golden CNFs", () => {
 
   it("regenerating is deterministic (fresh copies of the task, every encoding)", () => {
     for (const fx of fixtures) {
-      for (const id of STEP_ENCODINGS) {
+      for (const id of GOLDEN_FORMULAS) {
         const a = encodeFixture(id, fx);
         const b = encodeFixture(id, structuredClone(fx));
         const text = a.toDimacs();

@@ -1,9 +1,9 @@
-// Test helper: the golden fixtures (encodings/golden/fixture.json) and the file name of each
-// (encoding, fixture) golden CNF, shared by the golden test and the regeneration script.
+// Test helper: the golden fixtures (encodings/golden/fixture.json), every formula id that has a
+// golden CNF per fixture, and its file name — shared by the golden test and the regeneration script.
 import { readFileSync } from "node:fs";
 import { dirname, join } from "node:path";
 import { fileURLToPath } from "node:url";
-import { encodePlanning, type Encoding, type StepEncodingId } from "../../src/encode/index.js";
+import { COST_ENCODINGS, encodePlanning, STEP_ENCODINGS, type CostEncodingId, type Encoding, type PartId, type StepEncodingId } from "../../src/encode/index.js";
 import type { Task } from "../../src/ground/task.js";
 
 export const GOLDEN_DIR = join(dirname(fileURLToPath(import.meta.url)), "../../encodings/golden");
@@ -19,7 +19,34 @@ export function loadFixtures(): GoldenFixture[] {
   return (JSON.parse(readFileSync(join(GOLDEN_DIR, "fixture.json"), "utf8")) as { fixtures: GoldenFixture[] }).fixtures;
 }
 
-export const goldenFile = (id: StepEncodingId, fx: GoldenFixture) => join(GOLDEN_DIR, `${id}.${fx.name}.cnf`);
+/** A formula with a golden CNF: step encoding + cost encoding + parts (canonical order). */
+export interface GoldenFormula {
+  id: string;
+  encoding: StepEncodingId;
+  cost: CostEncodingId;
+  parts: PartId[];
+}
 
-export const encodeFixture = (id: StepEncodingId, fx: GoldenFixture): Encoding =>
-  encodePlanning(fx.task, { encoding: id, steps: fx.steps, mutexGroups: fx.mutexGroups });
+/** Every subset of the parts, in canonical order. */
+export const PART_SETS: readonly PartId[][] = [[], ["reach-1"], ["empty-steps-last-1"], ["reach-1", "empty-steps-last-1"]];
+
+/** Every step encoding × cost encoding × part set. */
+export const GOLDEN_FORMULAS: readonly GoldenFormula[] = STEP_ENCODINGS.flatMap((encoding) =>
+  COST_ENCODINGS.flatMap((cost) => PART_SETS.map((parts) => ({ id: [encoding, cost, ...parts].join("+"), encoding, cost, parts: [...parts] }))),
+);
+
+/**
+ * encodings/golden/<id>.<fixture>.cnf; the plain step encodings with cost-adder-1 and no parts
+ * keep the name they had before cost encodings and parts existed: <step>.<fixture>.cnf.
+ */
+export function goldenFile(f: GoldenFormula | StepEncodingId, fx: GoldenFixture): string {
+  if (typeof f === "string") return join(GOLDEN_DIR, `${f}.${fx.name}.cnf`);
+  const plain = f.cost === "cost-adder-1" && f.parts.length === 0;
+  return join(GOLDEN_DIR, `${plain ? f.encoding : f.id}.${fx.name}.cnf`);
+}
+
+/** The fixture's formula with its steps and mutex groups, default costBits / costCap. */
+export function encodeFixture(f: GoldenFormula | StepEncodingId, fx: GoldenFixture): Encoding {
+  const g = typeof f === "string" ? { encoding: f, cost: "cost-adder-1" as const, parts: [] } : f;
+  return encodePlanning(fx.task, { encoding: g.encoding, cost: g.cost, parts: g.parts, steps: fx.steps, mutexGroups: fx.mutexGroups });
+}

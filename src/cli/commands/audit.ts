@@ -12,7 +12,9 @@ export function registerAudit(program: Command, ctx: CliContext): void {
       .description(
         "re-check a certificate directory written by 'solve --certificate', trusting nothing but its domain and problem files:\n" +
           "re-parse, re-ground, replay the plan, recompute the horizon and its derivation, rebuild the CNF and compare its hash,\n" +
-          "check the DRAT proof with the independent checker (or the landmark record). Exit 0 valid, 1 rejected, 2 unreadable directory.",
+          "check the DRAT proof with the independent checker (or the landmark record). A certificate of an earlier version whose\n" +
+          "recorded horizon is above today's recomputed threshold is accepted (every plan that short fits into its steps).\n" +
+          "Exit 0 valid, 1 rejected, 2 unreadable directory.",
       )
       .argument("<dir>", "certificate directory (holds certificate.json)")
       .option("--time-limit <seconds>", "give up checking the proof after this many seconds (exit 3)"),

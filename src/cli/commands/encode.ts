@@ -33,7 +33,7 @@ export function registerEncode(program: Command, ctx: CliContext): void {
       .command("encode")
       .description(
         "write the planning CNF (DIMACS) the optimizer builds: the task after goal-relevance pruning and analysis, unrolled to T steps,\n" +
-          "with the cost adder; with --cost-below C, unit clauses ask for a plan of cost ≤ C − 1. Satisfiable exactly when such a plan\n" +
+          "with its cost encoding; with --cost-below C, unit clauses ask for a plan of cost ≤ C − 1. Satisfiable exactly when such a plan\n" +
           "of at most T steps exists. Comment lines name the parameters and where the fact and action variables are.",
       )
       .argument("<domain>", "PDDL domain file")
