@@ -18,9 +18,11 @@ export class AnalyzeScratch {
   btLevel = 0;
   lbd = 0;
   stack = new Int32Array(16);
+  stackPos = new Int32Array(16);
+  /** Clause literals per decision level during minimisation (all zero in between). */
+  perLevel = new Int32Array(16);
   toClear = new Int32Array(16);
   numClear = 0;
-  pushed = false;
   /** A binary antecedent staged for the analysis loop. */
   readonly pair = new Int32Array(2);
 
@@ -30,6 +32,8 @@ export class AnalyzeScratch {
     while (m < n) m *= 2;
     this.learnt = new Int32Array(m);
     this.stack = new Int32Array(m);
+    this.stackPos = new Int32Array(m);
+    this.perLevel = new Int32Array(m);
     this.toClear = new Int32Array(m);
   }
 }
@@ -134,13 +138,16 @@ export function analyze(s: SolverState, conflict: number, sc: AnalyzeScratch): v
   let nc = 0;
   for (let i = 1; i < n; i++) toClear[nc++] = learnt[i];
   sc.numClear = nc;
-  let abstract = 0;
-  for (let i = 1; i < n; i++) abstract |= 1 << (level[learnt[i] >> 1] & 31);
+  const perLevel = sc.perLevel;
+  for (let i = 1; i < n; i++) perLevel[level[learnt[i] >> 1]]++;
+  // a literal alone on its level is kept without a search: a walk from it stays on its level
+  // (every implied literal has an antecedent on its own level) down to the decision
   let kept = 1;
   for (let i = 1; i < n; i++) {
     const q = learnt[i];
-    if (reason[q >> 1] === 0 || !redundant(s, q, abstract, sc)) learnt[kept++] = q;
+    if (reason[q >> 1] === 0 || perLevel[level[q >> 1]] === 1 || !redundant(s, q, sc)) learnt[kept++] = q;
   }
+  for (let i = 0; i < n - 1; i++) perLevel[level[toClear[i] >> 1]] = 0; // (the original literals)
   s.minimised += n - kept;
   n = kept;
   for (let i = 0; i < sc.numClear; i++) seen[sc.toClear[i] >> 1] = 0;
@@ -160,50 +167,79 @@ export function analyze(s: SolverState, conflict: number, sc: AnalyzeScratch): v
   sc.lbd = computeLbd(s, learnt, 0, n);
 }
 
-/** Is `lit` (false, in the learned clause) implied by other literals marked seen? */
-function redundant(s: SolverState, lit: number, abstract: number, sc: AnalyzeScratch): boolean {
+/**
+ * Is `lit` (false, in the learned clause) implied by other literals of the clause? A depth-first
+ * walk over reasons; marks in `seen`: 1 = in the clause or shown implied by it (set when a
+ * literal's walk completes), 2 = shown not implied (every literal on the path to a failure), so
+ * no literal is explored twice in one minimisation. Marks are cleared via `toClear`.
+ */
+function redundant(s: SolverState, lit: number, sc: AnalyzeScratch): boolean {
   const arena = s.arena;
   const seen = s.seen;
   const reason = s.reason;
+  const level = s.level;
   const stack = sc.stack;
-  const top = sc.numClear;
-  let sp = 0;
-  stack[sp++] = lit;
+  const stackPos = sc.stackPos;
+  const toClear = sc.toClear;
+  const perLevel = sc.perLevel; // clause literals per level: none there means not implied
+  let nc = sc.numClear;
+  // frame: the literal and the position of the next antecedent to look at (binary reasons:
+  // 0 = their one literal not yet looked at; arena reasons: an arena index)
+  let sp = 1;
+  stack[0] = lit;
+  stackPos[0] = firstPos(arena, reason[lit >> 1]);
   while (sp > 0) {
-    const r = reason[stack[--sp] >> 1];
+    const top = stack[sp - 1];
+    const r = reason[top >> 1];
+    let next = -1;
     if (r < 0) {
-      if (!visitAntecedent(s, -r, abstract, sc)) return fail(s, sc, top);
-      if (sc.pushed) stack[sp++] = -r;
+      if (stackPos[sp - 1] === 0) {
+        stackPos[sp - 1] = 1;
+        next = -r;
+      }
+    } else {
+      let k = stackPos[sp - 1];
+      const end = r + HEADER + arena[r];
+      if (k < end) {
+        next = arena[k];
+        stackPos[sp - 1] = k + 1;
+      }
+    }
+    if (next < 0) {
+      // every antecedent of `top` is implied
+      sp--;
+      if (sp > 0) {
+        seen[top >> 1] = 1;
+        toClear[nc++] = top;
+      }
       continue;
     }
-    const end = r + HEADER + arena[r];
-    for (let k = r + HEADER + 1; k < end; k++) {
-      const l = arena[k];
-      if (!visitAntecedent(s, l, abstract, sc)) return fail(s, sc, top);
-      if (sc.pushed) stack[sp++] = l;
+    const v = next >> 1;
+    const m = seen[v];
+    if (m === 1 || level[v] === 0) continue;
+    if (m === 2 || reason[v] === 0 || perLevel[level[v]] === 0) {
+      for (let i = 1; i < sp; i++) {
+        seen[stack[i] >> 1] = 2;
+        toClear[nc++] = stack[i];
+      }
+      if (m === 0) {
+        seen[v] = 2;
+        toClear[nc++] = next;
+      }
+      sc.numClear = nc;
+      return false;
     }
+    stack[sp] = next;
+    stackPos[sp] = firstPos(arena, reason[v]);
+    sp++;
   }
+  sc.numClear = nc;
   return true;
 }
 
-/** Looks at one antecedent literal; sets `sc.pushed` when it must be explored further. */
-function visitAntecedent(s: SolverState, l: number, abstract: number, sc: AnalyzeScratch): boolean {
-  const v = l >> 1;
-  sc.pushed = false;
-  if (s.seen[v] !== 0 || s.level[v] === 0) return true;
-  if (s.reason[v] !== 0 && ((1 << (s.level[v] & 31)) & abstract) !== 0) {
-    s.seen[v] = 1;
-    sc.toClear[sc.numClear++] = l;
-    sc.pushed = true;
-    return true;
-  }
-  return false;
-}
-
-function fail(s: SolverState, sc: AnalyzeScratch, top: number): boolean {
-  for (let i = top; i < sc.numClear; i++) s.seen[sc.toClear[i] >> 1] = 0;
-  sc.numClear = top;
-  return false;
+/** Start position of a reason's antecedents for `redundant` (first literal is the implied one). */
+function firstPos(arena: Int32Array, r: number): number {
+  return r < 0 ? 0 : r + HEADER + 1;
 }
 
 /**

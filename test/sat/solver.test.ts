@@ -4,7 +4,7 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { checkDrat } from "../../src/proof/index.js";
 import { MemoryProofWriter, Solver, type Cnf } from "../../src/sat/index.js";
-import { pigeonhole, queens, randomKSat, satisfies } from "./support/generators.js";
+import { pigeonhole, queens, randomKSat, satisfies, unrolledCircuit } from "./support/generators.js";
 import { referenceAnswer } from "./support/reference.js";
 
 function load(cnf: Cnf, s = new Solver()): Solver {
@@ -55,30 +55,49 @@ describe("n-queens by model enumeration", () => {
   it("8 → 92 solutions", () => expect(countQueens(8)).toBe(92)); // source: OEIS A000170
 });
 
+/**
+ * Solves `cnf` with proof logging and frequent reductions; checks the answer against
+ * logic-solver, a model against every clause, an unsat proof with the checker. Returns the answer.
+ */
+function solveChecked(cnf: Cnf, format: "binary" | "text"): "sat" | "unsat" {
+  const mem = new MemoryProofWriter(format);
+  const s = load(cnf, new Solver({ proof: mem, reduceFirst: 20, reduceIncrement: 10 }));
+  const ours = s.solve();
+  expect(ours).toBe(referenceAnswer(cnf)); // source: logic-solver (npm), reference library
+  if (ours === "sat") {
+    expect(satisfies(cnf, s.model())).toBe(true);
+    return "sat";
+  }
+  const r = checkDrat(cnf, mem.bytes());
+  expect(r.valid, r.reason).toBe(true);
+  return "unsat";
+}
+
 describe("random 3-SAT near the threshold", () => {
   it("agrees with logic-solver; models satisfy every clause; unsat proofs check", () => {
-    let sat = 0;
-    let unsat = 0;
+    const count = { sat: 0, unsat: 0 };
     fc.assert(
       fc.property(fc.integer({ min: 5, max: 60 }), fc.integer({ min: 1, max: 1 << 30 }), (n, seed) => {
-        const cnf = randomKSat(n, Math.round(n * 4.26), 3, seed);
-        const mem = new MemoryProofWriter(seed % 2 ? "binary" : "text");
-        const s = load(cnf, new Solver({ proof: mem, reduceFirst: 20, reduceIncrement: 10 }));
-        const ours = s.solve();
-        expect(ours).toBe(referenceAnswer(cnf)); // source: logic-solver (npm), reference library
-        if (ours === "sat") {
-          sat++;
-          expect(satisfies(cnf, s.model())).toBe(true);
-        } else {
-          unsat++;
-          const r = checkDrat(cnf, mem.bytes());
-          expect(r.valid, r.reason).toBe(true);
-        }
+        count[solveChecked(randomKSat(n, Math.round(n * 4.26), 3, seed), seed % 2 ? "binary" : "text")]++;
       }),
       { numRuns: process.env.PLUMBLINE_SLOW ? 400 : 60, seed: 4260 },
     );
-    expect(sat).toBeGreaterThan(10);
-    expect(unsat).toBeGreaterThan(10);
+    expect(count.sat).toBeGreaterThan(10);
+    expect(count.unsat).toBeGreaterThan(10);
+  });
+});
+
+describe("unrolled random circuits (deep implication chains, several literals per level)", () => {
+  it("agrees with logic-solver; models satisfy every clause; unsat proofs check", () => {
+    const count = { sat: 0, unsat: 0 };
+    fc.assert(
+      fc.property(fc.integer({ min: 20, max: 40 }), fc.integer({ min: 8, max: 14 }), fc.integer({ min: 8, max: 16 }), fc.integer({ min: 1, max: 1 << 30 }), (width, steps, tenths, seed) => {
+        count[solveChecked(unrolledCircuit(width, steps, Math.round((width * tenths) / 10), seed), "binary")]++;
+      }),
+      { numRuns: process.env.PLUMBLINE_SLOW ? 400 : 60, seed: 1207 },
+    );
+    expect(count.sat).toBeGreaterThan(5);
+    expect(count.unsat).toBeGreaterThan(5);
   });
 });
 

@@ -83,3 +83,39 @@ export function randomKSatCompact(n: number, m: number, k: number, seed: number)
   }
   return { numVars: n, numClauses: m, lits };
 }
+
+/**
+ * A random circuit unrolled over `steps` steps (as in bounded model checking): `width` state
+ * bits, each next bit the AND, OR or XOR of two possibly negated current bits (Tseitin
+ * clauses), and `m` random 3-clauses over the last step. A decision on an early bit implies
+ * many literals on its level, so learned clauses hold several literals per level (the case
+ * where clause minimisation does most of its work).
+ */
+export function unrolledCircuit(width: number, steps: number, m: number, seed: number): Cnf {
+  const r = rng(seed);
+  const x = (t: number, i: number) => t * width + i + 1;
+  const clauses: Int32Array[] = [];
+  for (let t = 1; t <= steps; t++) {
+    for (let i = 0; i < width; i++) {
+      const o = x(t, i);
+      const a = x(t - 1, Math.floor(r() * width)) * (r() < 0.5 ? -1 : 1);
+      let b: number;
+      do b = x(t - 1, Math.floor(r() * width)) * (r() < 0.5 ? -1 : 1);
+      while (Math.abs(b) === Math.abs(a));
+      const kind = r();
+      if (kind < 0.4) clauses.push(Int32Array.of(-o, a), Int32Array.of(-o, b), Int32Array.of(o, -a, -b)); // o = a ∧ b
+      else if (kind < 0.8) clauses.push(Int32Array.of(o, -a), Int32Array.of(o, -b), Int32Array.of(-o, a, b)); // o = a ∨ b
+      else clauses.push(Int32Array.of(-o, a, b), Int32Array.of(-o, -a, -b), Int32Array.of(o, -a, b), Int32Array.of(o, a, -b)); // o = a ⊕ b
+    }
+  }
+  for (let c = 0; c < m; c++) {
+    const lits: number[] = [];
+    while (lits.length < 3) {
+      const v = x(steps, Math.floor(r() * width));
+      if (lits.some((l) => Math.abs(l) === v)) continue;
+      lits.push(r() < 0.5 ? -v : v);
+    }
+    clauses.push(Int32Array.from(lits));
+  }
+  return { numVars: (steps + 1) * width, clauses };
+}
