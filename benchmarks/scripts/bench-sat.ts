@@ -1,12 +1,13 @@
 // `npm run bench:sat`: the built-in CDCL solver against logic-solver (MiniSat compiled to
-// JavaScript) on a fixed seeded CNF set, plus proof-logging overhead and checker time.
+// JavaScript) on a fixed seeded CNF set, plus proof-logging overhead and checker time, and the
+// LRAT side: backward checking with vs without LRAT output, LRAT check time vs DRAT check time.
 // Usage: npm run bench:sat -- [--quick] [--time-limit S] [--cnf-dir DIR] [--only TEXT] [--json FILE]
-import { mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from "node:fs";
+import { closeSync, mkdirSync, mkdtempSync, openSync, readdirSync, readFileSync, rmSync, writeFileSync, writeSync } from "node:fs";
 import { createRequire } from "node:module";
 import { tmpdir } from "node:os";
 import { join, resolve } from "node:path";
 import { Worker } from "node:worker_threads";
-import { checkDrat } from "../../src/proof/index.js";
+import { checkDrat, checkLrat, type CheckerCnf, type DratResult } from "../../src/proof/index.js";
 import { FileProofWriter, Solver, readDimacsFile, toCompact, type CompactCnf, type ProofSink } from "../../src/sat/index.js";
 import { pigeonhole, randomKSatCompact } from "../../test/sat/support/generators.js";
 
@@ -142,6 +143,25 @@ interface Row {
   checkMs: number | null;
   checkRatio: number | null;
   checkValid: boolean | null;
+  /** Backward check that also writes the LRAT proof to a file (same run order, best of the same repeats). */
+  lratWriteMs: number | null;
+  /** lratWriteMs / checkMs − 1. */
+  lratOverhead: number | null;
+  lratBytes: number | null;
+  lratCheckMs: number | null;
+  /** LRAT check time / DRAT check time. */
+  lratCheckRatio: number | null;
+  lratValid: boolean | null;
+}
+
+/** Backward DRAT check writing LRAT to `path` (as `check-proof --lrat` does, minus the rename). */
+function checkWritingLrat(cnf: CheckerCnf, proof: Uint8Array, path: string): DratResult {
+  const fd = openSync(path, "w");
+  try {
+    return checkDrat(cnf, proof, { deadline: Date.now() + limitS * 1000, lrat: (chunk) => writeSync(fd, chunk, null, "latin1") });
+  } finally {
+    closeSync(fd);
+  }
 }
 
 const tmp = mkdtempSync(join(tmpdir(), "plumbline-bench-sat-"));
@@ -178,6 +198,12 @@ try {
       checkMs: null,
       checkRatio: null,
       checkValid: null,
+      lratWriteMs: null,
+      lratOverhead: null,
+      lratBytes: null,
+      lratCheckMs: null,
+      lratCheckRatio: null,
+      lratValid: null,
     };
     if (ours.status === "unsat") {
       const proofPath = join(tmp, `${inst.name}.drat`);
@@ -205,6 +231,34 @@ try {
         row.checkRatio = stopped ? null : row.checkMs / ours.ms;
         if (stopped) row.checkMs = null;
         if (!r.valid && !stopped) console.log(`  !! proof of ${inst.name} rejected: ${r.reason}`);
+        // LRAT: the same backward check writing LRAT (as many runs as the plain check), then the LRAT checker
+        if (r.valid && row.checkMs !== null) {
+          const lratPath = join(tmp, `${inst.name}.lrat`);
+          const cnfForCheck = { numVars: cnf.numVars, clauses: lits };
+          let best = Infinity;
+          let ok = true;
+          for (let i = 0; i < (repeat > 1 ? 2 : 1) && ok; i++) {
+            const w = checkWritingLrat(cnfForCheck, bytes, lratPath);
+            ok = w.valid;
+            if (ok) best = Math.min(best, w.stats.seconds * 1000);
+          }
+          if (ok) {
+            row.lratWriteMs = best;
+            row.lratOverhead = best / row.checkMs - 1;
+            const lratBytes = new Uint8Array(readFileSync(lratPath));
+            row.lratBytes = lratBytes.length;
+            let l = checkLrat(cnfForCheck, lratBytes);
+            if (repeat > 1 && l.valid) {
+              const again = checkLrat(cnfForCheck, lratBytes);
+              if (again.stats.seconds < l.stats.seconds) l = again;
+            }
+            row.lratValid = l.valid;
+            row.lratCheckMs = l.stats.seconds * 1000;
+            row.lratCheckRatio = row.lratCheckMs / row.checkMs;
+            if (!l.valid) console.log(`  !! LRAT of ${inst.name} rejected: ${l.reason}`);
+          } else console.log(`  !! ${inst.name}: the check writing LRAT did not finish or failed`);
+          rmSync(lratPath, { force: true });
+        }
         rmSync(proofPath, { force: true });
       }
     }
@@ -213,7 +267,10 @@ try {
       `${row.name.padEnd(24)} ${row.answer.padEnd(5)} ours ${fmt(row.oursMs).padStart(7)}  logic-solver ${(row.lsMs === null ? row.lsStatus.slice(0, 26) : fmt(row.lsMs)).padStart(7)}  ratio ${fmt(row.ratio, 2).padStart(5)}` +
         (row.proofOverhead !== null
           ? `  proof ${row.proofOverhead >= 0 ? "+" : ""}${fmt(100 * row.proofOverhead)}% (in writer ${fmt(100 * (row.proofSinkShare ?? 0))}%)  check ` +
-            (row.checkMs === null ? "limit" : `${fmt(row.checkMs)} (${fmt(row.checkRatio, 2)}× solve, ${row.checkValid ? "valid" : "REJECTED"})`)
+            (row.checkMs === null ? "limit" : `${fmt(row.checkMs)} (${fmt(row.checkRatio, 2)}× solve, ${row.checkValid ? "valid" : "REJECTED"})`) +
+            (row.lratWriteMs !== null
+              ? `  +LRAT ${row.lratOverhead! >= 0 ? "+" : ""}${fmt(100 * row.lratOverhead!)}% (${fmt((row.lratBytes ?? 0) / 1e6, 1)} MB)  LRAT check ${fmt(row.lratCheckMs)} (${fmt(row.lratCheckRatio, 2)}× DRAT check, ${row.lratValid ? "valid" : "REJECTED"})`
+              : "")
           : ""),
     );
   }
@@ -233,6 +290,9 @@ const proofTotal = sumOf(proofRows, (r) => r.proofMs) / Math.max(1, sumOf(proofR
 const sinkTotal = sumOf(proofRows, (r) => (r.proofMs ?? 0) * ((r.proofSinkShare ?? 0) / (1 + (r.proofSinkShare ?? 0)))) / Math.max(1, sumOf(proofRows, (r) => (r.proofMs ?? 0) / (1 + (r.proofSinkShare ?? 0))));
 const checkTotal = sumOf(checkRows, (r) => r.checkMs) / Math.max(1, sumOf(checkRows, (r) => r.oursMs));
 const checkLimited = proofRows.length - checkRows.length;
+const lratRows = checkRows.filter((r) => r.lratWriteMs !== null && r.lratCheckMs !== null);
+const lratOverheadTotal = sumOf(lratRows, (r) => r.lratWriteMs) / Math.max(1e-9, sumOf(lratRows, (r) => r.checkMs)) - 1;
+const lratCheckTotal = sumOf(lratRows, (r) => r.lratCheckMs) / Math.max(1e-9, sumOf(lratRows, (r) => r.checkMs));
 console.log("");
 console.log(`total on ${both.length} instances both finish: ours ${fmt(sumOurs)} ms, logic-solver ${fmt(sumLs)} ms, ratio ${fmt(sumOurs / Math.max(1, sumLs), 2)} (target ≤ 1.0)`);
 console.log(`logic-solver did not finish ${lsFailed.length}: ${lsFailed.map((r) => `${r.name} (${r.lsStatus}; ours: ${r.oursMs === null ? "limit" : fmt(r.oursMs) + " ms"})`).join(", ") || "none"}`);
@@ -240,6 +300,10 @@ console.log(
   `proof logging overhead (unsat instances, total): ${proofRows.length ? `${fmt(100 * proofTotal)}% between runs, ${fmt(100 * sinkTotal)}% measured inside the proof writer` : "n/a"} (target ≤ 30%)`,
 );
 console.log(`checker time / solve time (unsat instances checked within the limit, total): ${checkRows.length ? fmt(checkTotal, 2) : "n/a"} (target ≤ 2)${checkLimited ? `; ${checkLimited} check(s) hit the limit` : ""}`);
+console.log(
+  `LRAT (instances whose DRAT proof checked, total): writing LRAT adds ${lratRows.length ? fmt(100 * lratOverheadTotal) + "%" : "n/a"} to the backward check; LRAT check time / DRAT check time ${lratRows.length ? fmt(lratCheckTotal, 2) : "n/a"}` +
+    `${lratRows.some((r) => !r.lratValid) ? " — SOME LRAT PROOFS REJECTED" : ""}`,
+);
 mkdirSync(resolve(jsonOut, ".."), { recursive: true });
-writeFileSync(jsonOut, JSON.stringify({ date: new Date().toISOString(), limitSeconds: limitS, rows, summary: { sumOurs, sumLs, ratio: sumOurs / Math.max(1, sumLs), proofOverhead: proofTotal, proofWriterShare: sinkTotal, checkOverSolve: checkTotal } }, null, 2));
+writeFileSync(jsonOut, JSON.stringify({ date: new Date().toISOString(), limitSeconds: limitS, rows, summary: { sumOurs, sumLs, ratio: sumOurs / Math.max(1, sumLs), proofOverhead: proofTotal, proofWriterShare: sinkTotal, checkOverSolve: checkTotal, lratWriteOverhead: lratOverheadTotal, lratCheckOverDratCheck: lratCheckTotal } }, null, 2));
 console.log(`(rows written to ${jsonOut})`);

@@ -9,6 +9,11 @@ import { writeLrat, type LratSink } from "./lrat-writer.js";
 import type { ProofSteps } from "./proof-reader.js";
 import { NO_CONFLICT, Propagator } from "./propagator.js";
 
+// copied once (see propagator.ts)
+const ACTIVE = FLAG_ACTIVE;
+const CORE = FLAG_CORE;
+const TAUT = FLAG_TAUT;
+
 export type CheckMode = "backward" | "forward";
 
 export interface DratOptions {
@@ -157,7 +162,7 @@ export function checkSteps(cnf: CheckerCnf, proof: ProofSteps, opts: DratOptions
         if (id < 0) stats.missingDeletions++;
         else if (db.len[id] <= 1 || isReason(db, pr, id)) stats.ignoredDeletions++;
         else {
-          db.flags[id] &= ~FLAG_ACTIVE;
+          db.flags[id] &= ~ACTIVE;
           stepClause[t] = id;
         }
       } else {
@@ -190,21 +195,21 @@ export function checkSteps(cnf: CheckerCnf, proof: ProofSteps, opts: DratOptions
       const id = stepClause[t];
       if (proof.deletion[t]) {
         if (id >= 0) {
-          db.flags[id] |= FLAG_ACTIVE;
+          db.flags[id] |= ACTIVE;
           pr.attach(id, false);
         }
         continue;
       }
-      db.flags[id] &= ~FLAG_ACTIVE;
+      db.flags[id] &= ~ACTIVE;
       pr.backtrack(t > 0 ? trailAfter[t - 1] : baseTrail, unassigned);
-      if ((db.flags[id] & FLAG_CORE) === 0) continue;
+      if ((db.flags[id] & CORE) === 0) continue;
       stats.checkedLemmas++;
       const why = lemma.check(id, t);
       if (why !== null) return finish(failure(proof, t, lemmaNumber[t], why));
     }
     const core: number[] = [];
     for (let t = 0; t <= conflictStep; t++) {
-      if (!proof.deletion[t] && db.flags[stepClause[t]] & FLAG_CORE) {
+      if (!proof.deletion[t] && db.flags[stepClause[t]] & CORE) {
         stats.coreLemmas++;
         if (opts.wantCore) core.push(lemmaNumber[t]);
       }
@@ -262,7 +267,7 @@ class LemmaCheck {
    */
   check(id: number, step: number): string | null {
     const db = this.db;
-    if (db.flags[id] & FLAG_TAUT) return null;
+    if (db.flags[id] & TAUT) return null;
     const mark = step >= 0;
     const s = db.start[id];
     const n = db.len[id];
@@ -312,7 +317,7 @@ class LemmaCheck {
     const n = db.len[id];
     const neg = db.pivot[id] ^ 1;
     for (let d = 0; d < db.count; d++) {
-      if (d === id || (db.flags[d] & (FLAG_ACTIVE | FLAG_TAUT)) !== FLAG_ACTIVE) continue;
+      if (d === id || (db.flags[d] & (ACTIVE | TAUT)) !== ACTIVE) continue;
       const ds = db.start[d];
       const dn = db.len[d];
       let has = false;

@@ -5,6 +5,9 @@ import { type ClauseDb, FLAG_CORE } from "./clause-db.js";
 import type { HintLog } from "./hint-log.js";
 import type { Propagator } from "./propagator.js";
 
+// copied once (see propagator.ts)
+const CORE = FLAG_CORE;
+
 export class CoreMarker {
   private readonly db: ClauseDb;
   private readonly pr: Propagator;
@@ -41,8 +44,8 @@ export class CoreMarker {
 
   private mark(c: number): void {
     const flags = this.db.flags;
-    if (flags[c] & FLAG_CORE) return;
-    flags[c] |= FLAG_CORE;
+    if (flags[c] & CORE) return;
+    flags[c] |= CORE;
     this.pr.promote(c);
   }
 

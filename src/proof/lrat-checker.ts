@@ -15,6 +15,10 @@ export interface LratResult {
 
 class Reject extends Error {}
 
+/** Bounds that keep a malformed proof from exhausting memory (clause numbers index an array). */
+const MAX_ID_JUMP = 1 << 24;
+const MIN_VAR_LIMIT = 1 << 24;
+
 /** Checks a text LRAT proof that `cnf` is unsatisfiable (gzip-compressed input accepted). */
 export function checkLrat(cnf: CheckerCnf, proof: Uint8Array | string): LratResult {
   const t0 = performance.now();
@@ -29,6 +33,7 @@ export function checkLrat(cnf: CheckerCnf, proof: Uint8Array | string): LratResu
     clauses.push(lits);
   }
   let lastId = cnf.clauses.length;
+  const varLimit = Math.max(2 * maxVar, MIN_VAR_LIMIT);
   // assignment: value[v] = +1 / −1 for the variables set while checking one lemma
   let value = new Int8Array(maxVar + 1);
   const set: number[] = [];
@@ -125,6 +130,8 @@ export function checkLrat(cnf: CheckerCnf, proof: Uint8Array | string): LratResu
         const lits = upToZero("a literal");
         const hs = upToZero("a hint");
         if (id <= lastId) throw new Reject(`clause number ${id} is not above the previous one (${lastId})`);
+        if (id - lastId > MAX_ID_JUMP) throw new Reject(`clause number ${id} jumps more than ${MAX_ID_JUMP} above the previous one (${lastId})`);
+        for (const l of lits) if (Math.abs(l) > varLimit) throw new Reject(`literal ${l}: variable above ${varLimit}, the largest this checker allows for this formula`);
         checkLemma(lits, hs);
         lastId = id;
         while (clauses.length < id) clauses.push(null);

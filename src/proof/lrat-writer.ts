@@ -6,6 +6,12 @@ import type { CoreMarker } from "./core-marking.js";
 import { HINT_CANDIDATE, HINT_CLAUSE, HINT_UNIT, type HintLog } from "./hint-log.js";
 import type { ProofSteps } from "./proof-reader.js";
 
+// copied once (see propagator.ts)
+const CORE = FLAG_CORE;
+const CANDIDATE = HINT_CANDIDATE;
+const UNIT = HINT_UNIT;
+const CLAUSE = HINT_CLAUSE;
+
 /** Receives LRAT text in chunks of about 1 MB. */
 export type LratSink = (chunk: string) => void;
 
@@ -84,15 +90,15 @@ export function writeLrat(inp: LratInput, sink: LratSink): number {
     for (let k = from; k < from + n; k++) {
       const kind = buf[k] & 3;
       const x = buf[k] >> 2;
-      if (kind === HINT_CANDIDATE) {
+      if (kind === CANDIDATE) {
         // a candidate clause the LRAT proof never holds (not core) needs no hints
-        skipping = (flags[x] & FLAG_CORE) === 0;
+        skipping = (flags[x] & CORE) === 0;
         if (skipping) continue;
       } else if (skipping) continue;
       visit(kind, x);
     }
   };
-  const useEntry = (time: number) => (kind: number, x: number) => (kind === HINT_UNIT ? useUnit(x, time) : useClause(x, time));
+  const useEntry = (time: number) => (kind: number, x: number) => (kind === UNIT ? useUnit(x, time) : useClause(x, time));
   for (let t = 0; t <= conflictStep; t++) {
     if (!proof.deletion[t] && hints.segStart[t] >= 0) scan(hints.segStart[t], hints.segLen[t], useEntry(t + 1));
   }
@@ -167,7 +173,7 @@ export function writeLrat(inp: LratInput, sink: LratSink): number {
   };
   const hintText = (from: number, n: number): string => {
     const hs: number[] = [];
-    scan(from, n, (kind, x) => hs.push(kind === HINT_UNIT ? unitRef(x) : kind === HINT_CLAUSE ? ref(x) : -ref(x)));
+    scan(from, n, (kind, x) => hs.push(kind === UNIT ? unitRef(x) : kind === CLAUSE ? ref(x) : -ref(x)));
     return hs.join(" ");
   };
 
@@ -175,7 +181,7 @@ export function writeLrat(inp: LratInput, sink: LratSink): number {
   emitDeletions(0);
   for (let t = 0; t <= conflictStep; t++) {
     const id = stepClause[t];
-    if (!proof.deletion[t] && id >= 0 && flags[id] & FLAG_CORE) {
+    if (!proof.deletion[t] && id >= 0 && flags[id] & CORE) {
       const text = hintText(hints.segStart[t], hints.segLen[t]);
       clauseNo[id] = ++next;
       const c = db.dimacs(id);

@@ -85,32 +85,52 @@ export function readProof(bytes: Uint8Array): ProofSteps {
 
 function readBinary(b: Uint8Array): ProofSteps {
   const sb = new StepBuilder();
+  // a literal takes at least one byte, and every step two more: start with a quarter, grow by doubling
+  sb.lits = new Int32Array(Math.max(1024, b.length >> 2));
+  let lits = sb.lits;
+  let nl = 0;
+  let maxVar = 0;
   let i = 0;
   const n = b.length;
+  const fail = (msg: string): ProofSteps => {
+    sb.lits = lits;
+    sb.nl = nl;
+    sb.maxVar = maxVar;
+    return sb.finish("binary", msg);
+  };
   while (i < n) {
     const tag = b[i];
-    if (tag !== 0x61 && tag !== 0x64) return sb.finish("binary", `byte ${i}: expected 'a' or 'd' to start a proof step, found byte ${tag}`);
+    if (tag !== 0x61 && tag !== 0x64) return fail(`byte ${i}: expected 'a' or 'd' to start a proof step, found byte ${tag}`);
+    sb.nl = nl;
     sb.begin(tag === 0x64, i);
     i++;
     for (;;) {
-      if (i >= n) return sb.finish("binary", `byte ${n}: the proof ends inside a clause (truncated?)`);
-      let x = 0;
-      let shift = 0;
-      let byte: number;
-      do {
-        if (i >= n) return sb.finish("binary", `byte ${n}: the proof ends inside a literal (truncated?)`);
+      if (i >= n) return fail(`byte ${n}: the proof ends inside a clause (truncated?)`);
+      // 7-bit groups, least significant first; up to 4 groups fit a small integer exactly
+      let byte = b[i++];
+      let x = byte & 127;
+      let shift = 7;
+      while (byte & 128) {
+        if (i >= n) return fail(`byte ${n}: the proof ends inside a literal (truncated?)`);
+        if (shift >= 35) return fail(`byte ${i}: literal encoding too long`);
         byte = b[i++];
-        x += (byte & 127) * 2 ** shift;
+        x += shift < 28 ? (byte & 127) << shift : (byte & 127) * 2 ** shift;
         shift += 7;
-      } while (byte & 128 && shift < 35);
-      if (byte & 128) return sb.finish("binary", `byte ${i}: literal encoding too long`);
+      }
       if (x === 0) break;
-      if (x < 2) return sb.finish("binary", `byte ${i - 1}: invalid literal code ${x}`);
+      if (x < 2) return fail(`byte ${i - 1}: invalid literal code ${x}`);
       const v = Math.floor(x / 2);
-      sb.lit(x & 1 ? -v : v);
+      if (v > 0x7fffffff) return fail(`byte ${i - 1}: literal code ${x} is too large`);
+      if (v > maxVar) maxVar = v;
+      if (nl === lits.length) sb.lits = lits = resize32(lits, 2 * nl);
+      lits[nl++] = x & 1 ? -v : v;
     }
+    sb.nl = nl;
     sb.end();
   }
+  sb.lits = lits;
+  sb.nl = nl;
+  sb.maxVar = maxVar;
   return sb.finish("binary", null);
 }
 

@@ -6,6 +6,7 @@ import { describe, expect, it } from "vitest";
 import { checkDrat } from "../../src/proof/index.js";
 import { MemoryProofWriter, Solver } from "../../src/sat/index.js";
 import { randomKSat } from "../sat/support/generators.js";
+import { mutate, mutationArb } from "./support/mutate-drat.js";
 import { decodeProof, encodeText, naiveCheck, type NaiveStep } from "./support/naive-checker.js";
 
 function unsatInstance(seed: number): { clauses: number[][]; numVars: number; steps: NaiveStep[] } | null {
@@ -19,36 +20,6 @@ function unsatInstance(seed: number): { clauses: number[][]; numVars: number; st
   return { numVars: n, clauses: cnf.clauses.map((c) => Array.from(c)), steps: decodeProof(mem.bytes().slice()) };
 }
 
-type Mutation = { kind: "drop" | "flip" | "truncate" | "insert"; at: number; lit: number };
-
-function mutate(steps: NaiveStep[], m: Mutation, numVars: number): NaiveStep[] {
-  const out = steps.map((s) => ({ del: s.del, lits: [...s.lits] }));
-  const adds = out.map((s, i) => (s.del ? -1 : i)).filter((i) => i >= 0);
-  if (adds.length === 0) return out;
-  const i = adds[m.at % adds.length];
-  switch (m.kind) {
-    case "drop":
-      out.splice(i, 1);
-      break;
-    case "flip":
-      if (out[i].lits.length > 0) {
-        const k = m.lit % out[i].lits.length;
-        out[i].lits[k] = -out[i].lits[k];
-      }
-      break;
-    case "truncate":
-      out.length = i;
-      break;
-    case "insert": {
-      const v = 1 + (m.lit % numVars);
-      const w = 1 + ((m.lit >> 4) % numVars);
-      out.splice(i, 0, { del: false, lits: [m.lit & 1 ? v : -v, m.lit & 2 ? w : -w] });
-      break;
-    }
-  }
-  return out;
-}
-
 describe("fast checker agrees with the naive oracle", () => {
   it("accepts untouched solver proofs; on mutations forward agrees exactly and backward is never stricter", () => {
     let instances = 0;
@@ -57,7 +28,7 @@ describe("fast checker agrees with the naive oracle", () => {
     fc.assert(
       fc.property(
         fc.integer({ min: 1, max: 1_000_000 }),
-        fc.record({ kind: fc.constantFrom("drop", "flip", "truncate", "insert"), at: fc.nat(), lit: fc.nat() }) as fc.Arbitrary<Mutation>,
+        mutationArb,
         (seed, m) => {
           const inst = unsatInstance(seed);
           if (inst === null) return;

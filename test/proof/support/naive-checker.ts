@@ -116,7 +116,7 @@ export function decodeProof(bytes: Uint8Array): NaiveStep[] {
           shift += 7;
         } while (b & 128);
         if (x === 0) break;
-        lits.push(x & 1 ? -(x >> 1) : x >> 1);
+        lits.push(x % 2 ? -Math.floor(x / 2) : x / 2); // no 32-bit operators: codes reach 2^32
       }
       steps.push({ del, lits });
     }
