@@ -1,5 +1,5 @@
 // Measures (does not test) CNF sizes of every step encoding on the scenario instances, with and
-// without mutex groups: `npx tsx test/encode/measure-sizes.ts [--steps T] [--solve S] [DOMAIN PROBLEM ...]`.
+// without mutex groups: `npx tsx benchmarks/scripts/measure-sizes.ts [--steps T] [--solve S] [DOMAIN PROBLEM ...]`.
 // --solve S also runs bound tightening with the built-in solver (S seconds per CNF at most).
 import { readFileSync } from "node:fs";
 import { pairReachability, findVariables } from "../../src/analyse/index.js";

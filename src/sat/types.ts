@@ -14,13 +14,13 @@ export interface SolveLimits {
 export type SolveStatus = "sat" | "unsat" | "unknown";
 
 export interface SolverOptions {
-  /** Seed for the few randomised choices (default 0: fully deterministic). */
+  /** Accepted for API stability but currently unused: the solver makes no random choices, so runs are fully deterministic. */
   seed?: number;
   /** Proof sink receiving every learned and deleted clause (default none). */
   proof?: ProofSink | null;
-  /** Conflicts before the first learned-clause reduction (tuning and tests; default 2000). */
+  /** Conflicts before the first learned-clause reduction (tuning and tests; default 500). */
   reduceFirst?: number;
-  /** Growth of the reduction interval per round, in conflicts (default 300). */
+  /** Growth of the reduction interval per round, in conflicts (default 50). */
   reduceIncrement?: number;
 }
 

@@ -3,7 +3,7 @@
 import type { Command } from "commander";
 import { auditCertificate } from "../../certify/index.js";
 import { withCommonOptions, type CliContext } from "../context.js";
-import { deadlineFrom } from "./search.js";
+import { deadlineFrom } from "../options.js";
 
 export function registerAudit(program: Command, ctx: CliContext): void {
   withCommonOptions(

@@ -5,6 +5,7 @@ import { resolve } from "node:path";
 import type { Command } from "commander";
 import { CONFIGURATIONS, DEFAULT_MEMORY_LIMIT, DEFAULT_TIME_LIMIT, exportSlurm, mergeTasks, runBench, runTask } from "../../bench/index.js";
 import { PlumblineError } from "../../util/errors.js";
+import { positiveNumber } from "../options.js";
 import { withCommonOptions, type CliContext } from "../context.js";
 
 interface BenchCliOptions {
@@ -21,13 +22,6 @@ interface BenchCliOptions {
   runTask?: string;
   index?: string;
   grace?: string;
-}
-
-function positive(flag: string, v: string | undefined, integer = false): number | undefined {
-  if (v === undefined) return undefined;
-  const n = Number(v);
-  if (!Number.isFinite(n) || n <= 0 || (integer && !Number.isInteger(n))) throw new PlumblineError("usage", `${flag} expects a positive ${integer ? "integer" : "number"}, found '${v}'`);
-  return n;
 }
 
 function stamp(): string {
@@ -61,11 +55,11 @@ export function registerBench(program: Command, ctx: CliContext): void {
     ctx.configure(opts);
     const configs = opts.config?.flatMap((c) => c.split(",")).filter(Boolean);
     const common = {
-      jobs: positive("--jobs", opts.jobs, true),
-      timeLimit: positive("--time-limit", opts.timeLimit),
-      memoryLimit: positive("--memory-limit", opts.memoryLimit),
+      jobs: positiveNumber("--jobs", opts.jobs, true),
+      timeLimit: positiveNumber("--time-limit", opts.timeLimit),
+      memoryLimit: positiveNumber("--memory-limit", opts.memoryLimit),
       configs,
-      graceSeconds: opts.grace === undefined ? undefined : positive("--grace", opts.grace),
+      graceSeconds: opts.grace === undefined ? undefined : positiveNumber("--grace", opts.grace),
       signal: ctx.signal,
     };
     const stderr = ctx.io.stderr as NodeJS.WritableStream & { isTTY?: boolean };

@@ -1,12 +1,13 @@
 // `plumbline check-proof CNF PROOF`: checks a DRAT proof (binary or text, gzip or not) with the
 // stand-alone checker in src/proof, optionally writing an LRAT proof, or checks an LRAT proof
 // with the separate simple LRAT checker. Wiring only.
+import { resolve } from "node:path";
 import { Option, type Command } from "commander";
 import { checkDratFiles, checkLrat, readCnfForChecker, type CheckMode } from "../../proof/index.js";
 import { readBytes } from "../../util/files.js";
 import { PlumblineError } from "../../util/errors.js";
 import { withCommonOptions, type CliContext } from "../context.js";
-import { deadlineFrom } from "./search.js";
+import { deadlineFrom } from "../options.js";
 
 interface CheckProofCliOptions {
   json?: boolean;
@@ -50,6 +51,9 @@ export function registerCheckProof(program: Command, ctx: CliContext): void {
       return;
     }
     if (opts.lrat !== undefined && opts.mode === "forward") throw new PlumblineError("usage", "--lrat needs the backward mode");
+    if (opts.lrat !== undefined && [cnfPath, proofPath].some((p) => resolve(p) === resolve(opts.lrat as string))) {
+      throw new PlumblineError("usage", `--lrat ${opts.lrat} would overwrite an input file; choose another name`);
+    }
     const deadline = deadlineFrom(opts.timeLimit);
     const r = checkDratFiles(cnfPath, proofPath, { mode: opts.mode ?? "backward", deadline, signal: ctx.signal, lratFile: opts.lrat });
     for (const w of r.warnings) ctx.log.warn(w);

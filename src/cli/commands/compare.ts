@@ -7,7 +7,7 @@ import { satProver } from "../../optimize/index.js";
 import { comparePlan, sideBySide, type CompareResult } from "../../search/index.js";
 import { readText } from "../../util/files.js";
 import { withCommonOptions, type CliContext } from "../context.js";
-import { deadlineFrom } from "./search.js";
+import { deadlineFrom } from "../options.js";
 
 const EXIT: Record<CompareResult["verdict"], number> = { optimal: 0, invalid: 1, suboptimal: 1, undetermined: 3 };
 

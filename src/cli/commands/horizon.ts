@@ -6,8 +6,7 @@ import { checkUpperCost, computeHorizon, horizonReportJson, HORIZON_DEFAULTS, ty
 import { gbfs } from "../../search/index.js";
 import { PlumblineError } from "../../util/errors.js";
 import { withCommonOptions, type CliContext } from "../context.js";
-import { positiveOption } from "./measure.js";
-import { deadlineFrom } from "./search.js";
+import { deadlineFrom, positiveOption } from "../options.js";
 
 interface HorizonCliOptions {
   json?: boolean;

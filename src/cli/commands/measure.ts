@@ -3,7 +3,7 @@
 import type { Command } from "commander";
 import { groundFiles } from "../../ground/index.js";
 import { DEFAULT_MAX_STATES, measureTask, type Measure } from "../../measure/index.js";
-import { PlumblineError } from "../../util/errors.js";
+import { positiveOption } from "../options.js";
 import { withCommonOptions, type CliContext } from "../context.js";
 
 interface MeasureCliOptions {
@@ -12,14 +12,6 @@ interface MeasureCliOptions {
   verbose?: boolean;
   maxStates?: string;
   maxSearch?: string;
-}
-
-/** Parses a positive whole-number option (usage error otherwise). */
-export function positiveOption(flag: string, text: string | undefined, fallback: number): number {
-  if (text === undefined) return fallback;
-  const n = Number(text);
-  if (!Number.isSafeInteger(n) || n < 1) throw new PlumblineError("usage", `${flag} expects a positive whole number, found '${text}'`);
-  return n;
 }
 
 function show(m: Measure): string {

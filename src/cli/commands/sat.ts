@@ -4,7 +4,7 @@ import { Option, type Command } from "commander";
 import { FileProofWriter, Solver, readDimacsFile, solveExternal, type ProofFormat, type SolveStatus } from "../../sat/index.js";
 import { PlumblineError } from "../../util/errors.js";
 import { withCommonOptions, type CliContext } from "../context.js";
-import { deadlineFrom } from "./search.js";
+import { deadlineFrom } from "../options.js";
 
 interface SatCliOptions {
   json?: boolean;

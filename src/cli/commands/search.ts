@@ -6,6 +6,7 @@ import { formatPlan } from "../../plan/index.js";
 import { astar, gbfs, planNames, planSteps, type HeuristicName, type SearchResult } from "../../search/index.js";
 import { PlumblineError } from "../../util/errors.js";
 import { writeFileAtomic } from "../../util/files.js";
+import { deadlineFrom } from "../options.js";
 import { withCommonOptions, type CliContext } from "../context.js";
 
 interface SearchCliOptions {
@@ -16,14 +17,6 @@ interface SearchCliOptions {
   greedy?: boolean;
   timeLimit?: string;
   plan?: string;
-}
-
-/** Parses --time-limit (seconds, > 0) into an absolute deadline. */
-export function deadlineFrom(timeLimit: string | undefined): number | undefined {
-  if (timeLimit === undefined) return undefined;
-  const s = Number(timeLimit);
-  if (!Number.isFinite(s) || s <= 0) throw new PlumblineError("usage", `--time-limit expects a positive number of seconds, found '${timeLimit}'`);
-  return Date.now() + s * 1000;
 }
 
 export function peakMemoryBytes(): number {

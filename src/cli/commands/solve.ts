@@ -5,6 +5,7 @@ import { dratChecker, writeCertificate } from "../../certify/index.js";
 import { DEFAULT_ENCODING, disposeOutcome, optimizeFiles, resolveEncoding, type OptimizeOutcome } from "../../optimize/index.js";
 import { PlumblineError } from "../../util/errors.js";
 import { writeFileAtomic } from "../../util/files.js";
+import { positiveNumber } from "../options.js";
 import { withCommonOptions, type CliContext } from "../context.js";
 
 interface SolveCliOptions {
@@ -20,13 +21,6 @@ interface SolveCliOptions {
 }
 
 const CAUTION = "(plans are only as good as the model: an optimal plan of an incomplete model can still be unsafe in the real world)";
-
-function positive(name: string, v: string | undefined): number | undefined {
-  if (v === undefined) return undefined;
-  const x = Number(v);
-  if (!Number.isFinite(x) || x <= 0) throw new PlumblineError("usage", `${name} expects a positive number, found '${v}'`);
-  return x;
-}
 
 const num = (x: number): number | string => (Number.isFinite(x) ? x : "Infinity");
 
@@ -67,8 +61,8 @@ export function registerSolve(program: Command, ctx: CliContext): void {
       .option("--sat <solver>", "builtin (default), or external:CMD — a DIMACS solver run once per query ('{cnf}' and '{proof}' stand for the files); its DRAT proof is checked, and without one the final query is re-run with the built-in solver", "builtin"),
   ).action(async (domain: string, problem: string, opts: SolveCliOptions) => {
     ctx.configure(opts);
-    const timeLimit = positive("--time-limit", opts.timeLimit);
-    const memoryLimitMb = positive("--memory-limit", opts.memoryLimit);
+    const timeLimit = positiveNumber("--time-limit", opts.timeLimit);
+    const memoryLimitMb = positiveNumber("--memory-limit", opts.memoryLimit);
     resolveEncoding(opts.encoding); // a usage error before any work
     const sat = opts.sat ?? "builtin";
     if (sat !== "builtin" && !(sat.startsWith("external:") && sat.length > "external:".length)) throw new PlumblineError("usage", `--sat expects builtin or external:CMD, found '${sat}'`);
