@@ -3,12 +3,14 @@
 //
 // Usage: tsx benchmarks/scripts/bench-search.ts [DIR] [--time-limit S] [--runners a,b,...]
 //          [--sizes tiny,small,medium] [--seeds 1,2,3] [--out FILE.json]
-// Every runner gets the same time limit; add a runner (e.g. the SAT optimizer) to RUNNERS.
+// Every runner gets the same time limit; `sat-optimizer` runs the SAT optimizer (default encoding,
+// built-in solver, proof kept only in memory) beside the searches — the table users ask for first.
 import { mkdirSync, mkdtempSync, readdirSync, rmSync, statSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { basename, join, resolve } from "node:path";
 import { groundFiles } from "../../src/ground/index.js";
 import type { Task } from "../../src/ground/task.js";
+import { disposeOutcome, optimizeFiles } from "../../src/optimize/index.js";
 import { astar, gbfs, type SearchResult } from "../../src/search/index.js";
 import { generateProblem, scenarios, type SizeName } from "../domains/index.js";
 
@@ -31,7 +33,9 @@ interface Runner {
   name: string;
   /** Claims optimality when it solves: optimal costs of different runners must agree. */
   optimal: boolean;
-  run(task: Task, deadline: number): Outcome | Promise<Outcome>;
+  /** false when "expanded" counts something else (SAT calls): no expansions per second then. */
+  expands?: boolean;
+  run(task: Task, deadline: number, inst: Instance): Outcome | Promise<Outcome>;
 }
 
 const fromSearch = (r: SearchResult, optimal: boolean): Outcome => ({
@@ -47,7 +51,17 @@ const RUNNERS: Runner[] = [
   { name: "astar-max", optimal: true, run: (t, deadline) => fromSearch(astar(t, { heuristic: "max", deadline }), true) },
   { name: "astar-lmcut", optimal: true, run: (t, deadline) => fromSearch(astar(t, { heuristic: "landmark-cut", deadline }), true) },
   { name: "gbfs-ff", optimal: false, run: (t, deadline) => fromSearch(gbfs(t, { deadline }), false) },
+  { name: "sat-optimizer", optimal: true, expands: false, run: satOptimizer },
 ];
+
+/** The SAT optimizer on the instance's files (it grounds with its own options); "expanded" = SAT calls. */
+async function satOptimizer(_task: Task, deadline: number, inst: Instance): Promise<Outcome> {
+  const timeLimit = Math.max(0.1, (deadline - Date.now()) / 1000);
+  const out = await optimizeFiles(inst.domain, inst.problem, { timeLimit, progressIntervalMs: 1e9 });
+  disposeOutcome(out);
+  const detail = out.status === "optimal" ? (out.how ?? undefined) : (out.stopReason ?? undefined);
+  return { status: out.status, cost: out.cost, seconds: out.seconds, expanded: out.satCalls, detail };
+}
 /** Speeds are reported as ratios against this runner's figures from the same run. */
 const REFERENCE = "astar-blind";
 
@@ -130,7 +144,7 @@ async function main(): Promise<void> {
     const results: Record<string, Outcome> = {};
     for (const r of runners) {
       try {
-        results[r.name] = await r.run(task, Date.now() + o.timeLimit * 1000);
+        results[r.name] = await r.run(task, Date.now() + o.timeLimit * 1000, inst);
       } catch (e) {
         results[r.name] = { status: "error", cost: null, seconds: 0, expanded: 0, detail: (e as Error).message };
       }
@@ -144,8 +158,8 @@ async function main(): Promise<void> {
   rmSync(tmp, { recursive: true, force: true });
 
   // summary: coverage, total time on solved, expansions per second, ratios vs the reference
-  console.log("\nsummary (cells: cost [~ = not proven optimal], seconds, expansions)");
-  console.log(pad("runner", 14) + lpad("solved", 8) + lpad("exp/s", 10) + lpad("x ref exp/s", 13) + lpad("time common", 13) + lpad("x ref time", 12));
+  console.log("\nsummary (cells: cost [~ = not proven optimal], seconds, expansions [sat-optimizer: SAT calls]; solved = any plan or unsolvability, proven = optimal or unsolvable proven)");
+  console.log(pad("runner", 14) + lpad("solved", 8) + lpad("proven", 8) + lpad("exp/s", 10) + lpad("x ref exp/s", 13) + lpad("time common", 13) + lpad("x ref time", 12));
   const solved = (x: Outcome | undefined) => !!x && (x.status === "optimal" || x.status === "feasible" || x.status === "unsolvable");
   const summary: Record<string, unknown> = {};
   const ref = runners.find((r) => r.name === REFERENCE);
@@ -164,9 +178,10 @@ async function main(): Promise<void> {
     const common = rows.filter((row) => solved(row.results[r.name]) && (!ref || solved(row.results[ref.name])));
     const t = common.reduce((a, row) => a + row.results[r.name].seconds, 0);
     const tRef = ref ? common.reduce((a, row) => a + row.results[ref.name].seconds, 0) : NaN;
-    const rr = rate(r.name);
-    summary[r.name] = { solved: cov, of: rows.length, expansionsPerSecond: rr, ratioExpansionsPerSecond: rr / refRate, commonSeconds: t, ratioTimeCommon: t / tRef };
-    console.log(pad(r.name, 14) + lpad(`${cov}/${rows.length}`, 8) + lpad(fmt(rr, 0), 10) + lpad(fmt(rr / refRate), 13) + lpad(fmt(t), 13) + lpad(fmt(t / tRef), 12));
+    const proven = rows.filter((row) => ["optimal", "unsolvable"].includes(row.results[r.name].status)).length;
+    const rr = r.expands === false ? NaN : rate(r.name);
+    summary[r.name] = { solved: cov, proven, of: rows.length, expansionsPerSecond: rr, ratioExpansionsPerSecond: rr / refRate, commonSeconds: t, ratioTimeCommon: t / tRef };
+    console.log(pad(r.name, 14) + lpad(`${cov}/${rows.length}`, 8) + lpad(`${proven}`, 8) + lpad(fmt(rr, 0), 10) + lpad(fmt(rr / refRate), 13) + lpad(fmt(t), 13) + lpad(fmt(t / tRef), 12));
   }
   if (ref) console.log(`(ratios against ${ref.name} in this run; "time common" sums the instances both it and the reference solved)`);
   for (const p of problems) console.log(`PROBLEM: ${p}`);
