@@ -101,9 +101,14 @@ class Run {
     st.horizon = spec.steps;
     st.vars = formula.numVars;
     st.clauses = formula.numClauses;
-    st.conflicts = () => this.conflicts + (s.stats().conflicts - this.sessionConflicts0);
+    st.conflicts = () => this.totalConflicts();
     this.event("encode", `${formulaId(spec)} at horizon ${spec.steps}: ${formula.numVars} variables, ${formula.numClauses} clauses`);
     return s;
+  }
+
+  /** Conflicts of every session so far, the open one included. */
+  totalConflicts(): number {
+    return this.conflicts + (this.session ? this.session.stats().conflicts - this.sessionConflicts0 : 0);
   }
 
   close(): void {
@@ -410,7 +415,7 @@ function finish(run: Run, status: OptimizeOutcome["status"], how: ProofHow | nul
     timeToProof: claimable ? run.budget.elapsed() : null,
     timeline: run.timeline,
     satCalls: run.satCalls,
-    conflicts: run.conflicts,
+    conflicts: run.totalConflicts(),
     variables: formula?.numVars ?? run.lastFormula?.numVars ?? null,
     clauses: formula?.numClauses ?? run.lastFormula?.numClauses ?? null,
     peakRssBytes: Math.max(run.budget.peakRss, run.budget.rss()),
