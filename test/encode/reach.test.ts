@@ -37,7 +37,9 @@ describe("reach-1 layers", () => {
       }),
       { numRuns: runs(60) },
     );
-    expect(states).toBeGreaterThan(300);
+    // not vacuous: on average more than two states per generated case (a run with no applicable
+    // action contributes one); typical totals are 250–600 for 60 cases
+    expect(states).toBeGreaterThan(2 * runs(60));
   });
 
   it("relevance: a plan with its impossible actions dropped and gaps closed is a plan, no dearer, every action possible at its new step", () => {
