@@ -6,7 +6,7 @@ import { prepareTask, type PreparedTask } from "../analyse/index.js";
 import { checkParts, COST_ENCODINGS, STEP_ENCODINGS, type CostEncodingId, type PartId, type StepEncodingId } from "../encode/index.js";
 import { ground, type Task } from "../ground/index.js";
 import { computeHorizon, horizonReportJson } from "../horizon/index.js";
-import { boundSettings, buildFormula, canonicalCnfSha256, checkerCnf, formulaId, type FormulaSpec } from "../optimize/index.js";
+import { boundSettings, buildFormula, canonicalCnfSha256, checkerCnf, costSetting, formulaId, type FormulaSpec } from "../optimize/index.js";
 import { modelFromTexts, type Model } from "../pddl/index.js";
 import { parsePlan, replayPlan } from "../plan/index.js";
 import { checkDrat } from "../proof/index.js";
@@ -329,8 +329,7 @@ function auditHorizonUnsat(c: Checks, dir: string, cert: CertificateJson, task: 
   if (stepOk && partsOk && enc.id !== formulaId(spec)) problems.push(`id ${JSON.stringify(enc.id)} is not ${formulaId(spec)}`);
   const params: Record<string, unknown> = isObj(enc.params) ? enc.params : {};
   // the bound setting of the recorded cost encoding, recomputed from the upper cost
-  const setting = costId === "cost-unary-1" ? "costCap" : "costBits";
-  const settingValue = setting === "costCap" ? spec.costCap : spec.costBits;
+  const { name: setting, value: settingValue } = costSetting(spec);
   if (params.steps !== H) problems.push(`steps ${JSON.stringify(params.steps)} is not the accepted horizon ${H}`);
   if (params[setting] !== settingValue) problems.push(`${setting} ${JSON.stringify(params[setting])} is not ${settingValue}`);
   const extra = Object.keys(params).filter((k) => !["steps", setting, "mutexGroups"].includes(k));

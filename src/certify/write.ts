@@ -6,7 +6,7 @@ import * as path from "node:path";
 import { pipeline } from "node:stream/promises";
 import { createGzip } from "node:zlib";
 import { horizonReportJson } from "../horizon/index.js";
-import { canonicalCnfSha256, formulaId, type CertificateMaterial } from "../optimize/index.js";
+import { canonicalCnfSha256, costSetting, formulaId, type CertificateMaterial } from "../optimize/index.js";
 import { PlumblineError } from "../util/errors.js";
 import { writeDirAtomic } from "../util/files.js";
 import { VERSION } from "../util/version.js";
@@ -72,6 +72,7 @@ export async function writeCertificate(dir: string, m: CertificateMaterial): Pro
   let landmarksText: string | null = null;
   if (claim.how === "horizon-unsat") {
     const f = m.formula!;
+    const setting = costSetting(f.spec);
     json.horizon = horizonReportJson(m.horizon!);
     json.encoding = {
       id: formulaId(f.spec),
@@ -79,10 +80,7 @@ export async function writeCertificate(dir: string, m: CertificateMaterial): Pro
       cost: f.params.cost,
       // the encoding's optional parts (the field kept its name from when they were optimizer extensions)
       extensions: [...f.spec.parts],
-      params:
-        f.params.cost === "cost-unary-1"
-          ? { steps: f.spec.steps, costCap: f.spec.costCap, mutexGroups: f.params.mutexGroups }
-          : { steps: f.spec.steps, costBits: f.spec.costBits, mutexGroups: f.params.mutexGroups },
+      params: { steps: f.spec.steps, [setting.name]: setting.value, mutexGroups: f.params.mutexGroups },
       bound: m.bound,
       boundUnits: [...m.units],
     };

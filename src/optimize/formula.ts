@@ -47,13 +47,19 @@ export interface Formula {
   boundUnits(B: number): number[];
 }
 
-/** The encoder options of a spec: costBits for cost-adder-1, costCap for cost-unary-1. */
+/** The bound setting a spec's cost encoding uses: costCap for cost-unary-1, costBits otherwise. */
+export function costSetting(spec: Pick<FormulaSpec, "cost" | "costBits" | "costCap">): { name: "costBits" | "costCap"; value: number } {
+  return spec.cost === "cost-unary-1" ? { name: "costCap", value: spec.costCap } : { name: "costBits", value: spec.costBits };
+}
+
+/** The encoder options of a spec: its cost encoding's bound setting only (see costSetting). */
 export function encodeOptionsOf(spec: FormulaSpec): EncodeOptions {
+  const setting = costSetting(spec);
   return {
     encoding: spec.encoding,
     steps: spec.steps,
     cost: spec.cost,
-    ...(spec.cost === "cost-unary-1" ? { costCap: spec.costCap } : { costBits: spec.costBits }),
+    [setting.name]: setting.value,
     mutexGroups: spec.mutexGroups,
     parts: spec.parts,
   };

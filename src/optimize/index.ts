@@ -12,6 +12,7 @@ export {
   canonicalCnfSha256,
   checkerCnf,
   costBitsFor,
+  costSetting,
   encodeOptionsOf,
   formulaId,
   parseFormulaId,

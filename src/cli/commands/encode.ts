@@ -4,7 +4,7 @@ import * as fs from "node:fs";
 import type { Command } from "commander";
 import { prepareTask } from "../../analyse/index.js";
 import { groundFiles } from "../../ground/index.js";
-import { boundSettings, buildFormula, DEFAULT_ENCODING, formulaId, OPTIMIZE_GROUNDING, resolveEncoding, specFor, writeCanonicalDimacs } from "../../optimize/index.js";
+import { boundSettings, buildFormula, costSetting, DEFAULT_ENCODING, formulaId, OPTIMIZE_GROUNDING, resolveEncoding, specFor, writeCanonicalDimacs } from "../../optimize/index.js";
 import { PlumblineError } from "../../util/errors.js";
 import { tempNameFor } from "../../util/files.js";
 import { withCommonOptions, type CliContext } from "../context.js";
@@ -63,8 +63,9 @@ export function registerEncode(program: Command, ctx: CliContext): void {
     });
     const f = buildFormula(prepared.task, spec);
     const units = f.boundUnits(below === undefined ? Infinity : below - 1);
+    const setting = costSetting(spec);
     const comments = [
-      `plumbline ${formulaId(spec)} steps=${steps} ${spec.cost === "cost-unary-1" ? `costCap=${spec.costCap}` : `costBits=${spec.costBits}`} mutexGroups=${spec.mutexGroups.length}${below === undefined ? "" : ` query: cost <= ${below - 1}`}`,
+      `plumbline ${formulaId(spec)} steps=${steps} ${setting.name}=${setting.value} mutexGroups=${spec.mutexGroups.length}${below === undefined ? "" : ` query: cost <= ${below - 1}`}`,
       `task after pruning: ${prepared.task.facts.length} facts, ${prepared.task.actions.length} actions; fact f at time t = 1 + t*${prepared.task.facts.length} + f, action a in step s = ${1 + (steps + 1) * prepared.task.facts.length} + (s-1)*${prepared.task.actions.length} + a`,
     ];
     const header = comments.map((c) => `c ${c}\n`).join("");
