@@ -49,7 +49,7 @@ const fromSearch = (r: SearchResult, optimal: boolean): Outcome => ({
 const RUNNERS: Runner[] = [
   { name: "astar-blind", optimal: true, run: (t, deadline) => fromSearch(astar(t, { heuristic: "blind", deadline }), true) },
   { name: "astar-max", optimal: true, run: (t, deadline) => fromSearch(astar(t, { heuristic: "max", deadline }), true) },
-  { name: "astar-lmcut", optimal: true, run: (t, deadline) => fromSearch(astar(t, { heuristic: "landmark-cut", deadline }), true) },
+  { name: "astar-landmark-cut", optimal: true, run: (t, deadline) => fromSearch(astar(t, { heuristic: "landmark-cut", deadline }), true) },
   { name: "gbfs-ff", optimal: false, run: (t, deadline) => fromSearch(gbfs(t, { deadline }), false) },
   { name: "sat-optimizer", optimal: true, expands: false, run: satOptimizer },
 ];

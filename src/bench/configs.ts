@@ -61,12 +61,12 @@ const astarConfig = (name: string, heuristic: string, label: string): Configurat
 export const CONFIGURATIONS: readonly Configuration[] = [
   satConfig("sat-forall", "forall-1"),
   satConfig("sat-seq", "seq-1"),
-  astarConfig("astar-lmcut", "landmark-cut", "landmark-cut"),
+  astarConfig("astar-landmark-cut", "landmark-cut", "landmark-cut"),
   astarConfig("astar-blind", "blind", "the blind heuristic (Dijkstra)"),
 ];
 
 /** Configurations a suite gets when neither it nor the command line names any. */
-export const DEFAULT_CONFIGURATIONS = ["sat-forall", "astar-lmcut"];
+export const DEFAULT_CONFIGURATIONS = ["sat-forall", "astar-landmark-cut"];
 
 export type ConfigRegistry = ReadonlyMap<string, Configuration>;
 

@@ -97,8 +97,8 @@ describe("bench runner", () => {
       suite,
       JSON.stringify({
         entries: [
-          { domain: join(domains, "harbour/domain.pddl"), problem: join(domains, "harbour/problem-01.pddl"), configurations: ["astar-lmcut", "astar-blind"] },
-          { domain: join(domains, "workshop/domain.pddl"), problem: join(domains, "workshop/problem-01.pddl"), configuration: "astar-lmcut" },
+          { domain: join(domains, "harbour/domain.pddl"), problem: join(domains, "harbour/problem-01.pddl"), configurations: ["astar-landmark-cut", "astar-blind"] },
+          { domain: join(domains, "workshop/domain.pddl"), problem: join(domains, "workshop/problem-01.pddl"), configuration: "astar-landmark-cut" },
         ],
       }),
     );
@@ -106,14 +106,14 @@ describe("bench runner", () => {
     const figures = (s: string) => JSON.parse(readFileSync(join(domains, s, "instances.json"), "utf8"))["problem-01"];
     const byId = new Map(r.records.map((x) => [x.id, x]));
     // source: benchmarks/domains/*/instances.json (Dijkstra on each scenario's PDDL-free model)
-    for (const id of ["harbour/problem-01@astar-lmcut", "harbour/problem-01@astar-blind"]) {
+    for (const id of ["harbour/problem-01@astar-landmark-cut", "harbour/problem-01@astar-blind"]) {
       expect(byId.get(id)).toMatchObject({ status: "optimal", cost: figures("harbour").optimalCost, lowerBound: figures("harbour").optimalCost });
     }
-    expect(byId.get("workshop/problem-01@astar-lmcut")).toMatchObject({ status: "optimal", cost: figures("workshop").optimalCost });
+    expect(byId.get("workshop/problem-01@astar-landmark-cut")).toMatchObject({ status: "optimal", cost: figures("workshop").optimalCost });
     expect(r.agreement.findings).toEqual([]);
     const html = readFileSync(r.html, "utf8");
     expect(html).toContain("harbour/problem-01");
-    const planFile = join(dir, "out", byId.get("harbour/problem-01@astar-lmcut")!.runDir, "plan.txt");
+    const planFile = join(dir, "out", byId.get("harbour/problem-01@astar-landmark-cut")!.runDir, "plan.txt");
     expect(readFileSync(planFile, "utf8").trim().split("\n").filter((l) => l.startsWith("(")).length).toBe(figures("harbour").optimalLength);
   });
 
@@ -121,7 +121,7 @@ describe("bench runner", () => {
     const dir = tempDir("runner-sat");
     const suite = join(dir, "s.json");
     const h = join(ROOT, "benchmarks/domains/harbour");
-    writeFileSync(suite, JSON.stringify({ configurations: ["sat-forall", "sat-seq", "astar-lmcut"], entries: [{ domain: join(h, "domain.pddl"), problem: join(h, "problem-01.pddl") }] }));
+    writeFileSync(suite, JSON.stringify({ configurations: ["sat-forall", "sat-seq", "astar-landmark-cut"], entries: [{ domain: join(h, "domain.pddl"), problem: join(h, "problem-01.pddl") }] }));
     const r = await runBench({ suite, outDir: join(dir, "out"), jobs: 2, timeLimit: 120, memoryLimit: 2048 });
     // source: benchmarks/domains/harbour/instances.json (problem-01: optimal cost 20, Dijkstra on the PDDL-free model)
     const optimal = JSON.parse(readFileSync(join(h, "instances.json"), "utf8"))["problem-01"].optimalCost;
@@ -134,7 +134,7 @@ describe("bench runner", () => {
       expect(rec.timeline[rec.timeline.length - 1]).toMatchObject({ upper: optimal, lower: optimal });
       expect(readFileSync(join(dir, "out", rec.runDir, "audit.json"), "utf8")).toContain('"valid": true');
     }
-    expect(r.records.find((x) => x.configuration === "astar-lmcut")).toMatchObject({ status: "optimal", cost: optimal });
+    expect(r.records.find((x) => x.configuration === "astar-landmark-cut")).toMatchObject({ status: "optimal", cost: optimal });
     expect(r.agreement.findings).toEqual([]);
     expect(r.agreement.instances[0].verdict).toBe("agree");
   });

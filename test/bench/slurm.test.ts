@@ -22,7 +22,7 @@ describe("slurm export and merge", () => {
         configurations: ["astar-blind"],
         timeLimit: 60,
         memoryLimit: 1024,
-        entries: [{ domain: join(domains, "harbour/domain.pddl"), problem: join(domains, "harbour/problem-01.pddl") }, { scenario: "workshop", size: "tiny", seed: 1, configuration: "astar-lmcut" }],
+        entries: [{ domain: join(domains, "harbour/domain.pddl"), problem: join(domains, "harbour/problem-01.pddl") }, { scenario: "workshop", size: "tiny", seed: 1, configuration: "astar-landmark-cut" }],
       }),
     );
     const exp = join(dir, "export");
@@ -31,7 +31,7 @@ describe("slurm export and merge", () => {
     const tasks = readTasks(e.taskList);
     expect(tasks.map((t) => [t.index, t.id, t.domainFile, t.problemFile])).toEqual([
       [0, "harbour/problem-01@astar-blind", "instances/harbour/problem-01/domain.pddl", "instances/harbour/problem-01/problem.pddl"],
-      [1, "workshop/tiny-s1@astar-lmcut", "instances/workshop/domain.pddl", "instances/workshop/tiny-s1.pddl"],
+      [1, "workshop/tiny-s1@astar-landmark-cut", "instances/workshop/domain.pddl", "instances/workshop/tiny-s1.pddl"],
     ]);
     // the export is self-contained: inputs are copied in
     expect(readFileSync(join(exp, tasks[0].problemFile), "utf8")).toBe(readFileSync(join(domains, "harbour/problem-01.pddl"), "utf8"));
@@ -73,17 +73,17 @@ describe("slurm export and merge", () => {
   it("exit code 1 and a loud banner when merged results disagree on a proven optimum", async () => {
     const dir = tempDir("slurm-bad");
     const suite = join(dir, "s.json");
-    writeFileSync(suite, JSON.stringify({ configurations: ["astar-blind", "astar-lmcut"], entries: [{ domain: join(domains, "harbour/domain.pddl"), problem: join(domains, "harbour/problem-01.pddl") }] }));
+    writeFileSync(suite, JSON.stringify({ configurations: ["astar-blind", "astar-landmark-cut"], entries: [{ domain: join(domains, "harbour/domain.pddl"), problem: join(domains, "harbour/problem-01.pddl") }] }));
     const exp = join(dir, "export");
     exportSlurm({ suite }, exp);
     const base = { instance: "harbour/problem-01", domain: "harbour", domainFile: "d", problemFile: "p", status: "optimal", reason: null, lowerBound: null, horizon: null, planLength: 6, seconds: 1, toolSeconds: 1, memory: 1, proofBytes: null, audit: "none", auditSeconds: null, auditReason: null, exitCode: 0, timeLimit: 60, memoryLimit: 1024, timeline: [], startedAt: "", runDir: "r" };
     // planted: two "proven optima" that differ
     writeFileSync(join(exp, "results", "task-0.jsonl"), JSON.stringify({ ...base, id: "harbour/problem-01@astar-blind", configuration: "astar-blind", cost: 20 }) + "\n");
-    writeFileSync(join(exp, "results", "task-1.jsonl"), JSON.stringify({ ...base, id: "harbour/problem-01@astar-lmcut", configuration: "astar-lmcut", cost: 19 }) + "\n");
+    writeFileSync(join(exp, "results", "task-1.jsonl"), JSON.stringify({ ...base, id: "harbour/problem-01@astar-landmark-cut", configuration: "astar-landmark-cut", cost: 19 }) + "\n");
     const m = await cli(["bench", "--merge", exp]);
     expect(m.code).toBe(1);
     expect(m.stdout).toContain("!!  1 DISAGREEMENT BETWEEN CONFIGURATIONS — THIS MEANS A BUG IN PLUMBLINE");
-    expect(m.stdout).toContain("astar-blind = 20, astar-lmcut = 19");
+    expect(m.stdout).toContain("astar-blind = 20, astar-landmark-cut = 19");
   });
 
   it("scales the requested wall time for audited configurations", () => {

@@ -7,7 +7,7 @@ import { describe, expect, it } from "vitest";
 import { loadSuite, parseSuite, planBench } from "../../src/bench/index.js";
 import { errorOf, ROOT, tempDir, writeTree } from "./support.js";
 
-const KNOWN = ["sat-forall", "sat-seq", "astar-lmcut", "astar-blind"];
+const KNOWN = ["sat-forall", "sat-seq", "astar-landmark-cut", "astar-blind"];
 
 describe("directory suites", () => {
   it("takes every other .pddl of a folder holding domain.pddl, and pairs per-problem domains", () => {
@@ -59,12 +59,12 @@ describe("JSON suites", () => {
     writeTree(dir, { "m/domain.pddl": "d", "m/one.pddl": "p", "tree/k/domain.pddl": "d", "tree/k/q.pddl": "p" });
     const text = JSON.stringify({
       name: "mine",
-      configurations: ["astar-lmcut"],
+      configurations: ["astar-landmark-cut"],
       timeLimit: 7,
       entries: [
         { domain: "m/domain.pddl", problem: "m/one.pddl", configuration: "astar-blind" },
         { scenario: "harbour", size: "tiny", seeds: [1, 2], params: { trucks: 2 } },
-        { scenario: "workshop", size: "tiny", seed: 3, configurations: ["sat-forall", "astar-lmcut"] },
+        { scenario: "workshop", size: "tiny", seed: 3, configurations: ["sat-forall", "astar-landmark-cut"] },
         { directory: "tree" },
       ],
     });
@@ -76,7 +76,7 @@ describe("JSON suites", () => {
       ["m/one", "m", ["astar-blind"]],
       ["harbour/tiny-s1-trucks2", "harbour", null],
       ["harbour/tiny-s2-trucks2", "harbour", null],
-      ["workshop/tiny-s3", "workshop", ["sat-forall", "astar-lmcut"]],
+      ["workshop/tiny-s3", "workshop", ["sat-forall", "astar-landmark-cut"]],
       ["k/q", "k", null],
     ]);
     expect(s.instances[0].problemFile).toBe(join(dir, "m/one.pddl"));
@@ -87,7 +87,7 @@ describe("JSON suites", () => {
     const out = tempDir("suite-gen");
     const suiteFile = join(out, "s.json");
     writeFileSync(suiteFile, JSON.stringify({ entries: [{ scenario: "harbour", size: "tiny", seed: 6 }] }));
-    const plan = planBench({ suite: suiteFile, configs: ["astar-lmcut"] }, join(out, "instances"));
+    const plan = planBench({ suite: suiteFile, configs: ["astar-landmark-cut"] }, join(out, "instances"));
     expect(plan.runs).toHaveLength(1);
     const r = plan.runs[0];
     expect(r.problemFile).toBe(join(out, "instances/harbour/tiny-s6.pddl"));
@@ -100,11 +100,11 @@ describe("JSON suites", () => {
     const dir = tempDir("suite-select");
     writeTree(dir, { "m/domain.pddl": "d", "m/a.pddl": "p", "m/b.pddl": "p" });
     const suiteFile = join(dir, "s.json");
-    writeFileSync(suiteFile, JSON.stringify({ configurations: ["sat-forall", "astar-lmcut"], entries: [{ domain: "m/domain.pddl", problem: "m/a.pddl" }, { domain: "m/domain.pddl", problem: "m/b.pddl", configuration: "sat-seq" }] }));
+    writeFileSync(suiteFile, JSON.stringify({ configurations: ["sat-forall", "astar-landmark-cut"], entries: [{ domain: "m/domain.pddl", problem: "m/a.pddl" }, { domain: "m/domain.pddl", problem: "m/b.pddl", configuration: "sat-seq" }] }));
     const all = planBench({ suite: suiteFile }, join(dir, "inst")).runs.map((r) => `${r.instance}@${r.configuration}`);
-    expect(all).toEqual(["m/a@sat-forall", "m/a@astar-lmcut", "m/b@sat-seq"]);
-    const only = planBench({ suite: suiteFile, configs: ["astar-lmcut", "sat-seq"] }, join(dir, "inst")).runs.map((r) => `${r.instance}@${r.configuration}`);
-    expect(only).toEqual(["m/a@astar-lmcut", "m/a@sat-seq", "m/b@sat-seq"]);
+    expect(all).toEqual(["m/a@sat-forall", "m/a@astar-landmark-cut", "m/b@sat-seq"]);
+    const only = planBench({ suite: suiteFile, configs: ["astar-landmark-cut", "sat-seq"] }, join(dir, "inst")).runs.map((r) => `${r.instance}@${r.configuration}`);
+    expect(only).toEqual(["m/a@astar-landmark-cut", "m/a@sat-seq", "m/b@sat-seq"]);
     const blind = planBench({ suite: suiteFile, configs: ["astar-blind"] }, join(dir, "inst")).runs.map((r) => `${r.instance}@${r.configuration}`);
     expect(blind).toEqual(["m/a@astar-blind"]);
   });

@@ -11,22 +11,22 @@ describe("coverage", () => {
     const rs = [
       rec({ instance: "harbour/a", configuration: "sat-forall", status: "optimal" }),
       rec({ instance: "harbour/b", configuration: "sat-forall", status: "unknown", cost: null }),
-      rec({ instance: "harbour/a", configuration: "astar-lmcut", status: "optimal" }),
-      rec({ instance: "harbour/b", configuration: "astar-lmcut", status: "optimal" }),
-      rec({ instance: "workshop/c", configuration: "astar-lmcut", status: "feasible" }),
+      rec({ instance: "harbour/a", configuration: "astar-landmark-cut", status: "optimal" }),
+      rec({ instance: "harbour/b", configuration: "astar-landmark-cut", status: "optimal" }),
+      rec({ instance: "workshop/c", configuration: "astar-landmark-cut", status: "feasible" }),
     ];
-    const c = coverage(rs, ["sat-forall", "astar-lmcut"]);
-    expect(c.configurations).toEqual(["sat-forall", "astar-lmcut"]);
+    const c = coverage(rs, ["sat-forall", "astar-landmark-cut"]);
+    expect(c.configurations).toEqual(["sat-forall", "astar-landmark-cut"]);
     expect(c.domains).toEqual(["harbour", "workshop"]);
     expect(c.instances).toEqual({ total: 3, harbour: 2, workshop: 1 });
     expect(c.optimal["sat-forall"]).toEqual({ total: 1, harbour: 1, workshop: 0 });
-    expect(c.optimal["astar-lmcut"]).toEqual({ total: 2, harbour: 2, workshop: 0 });
+    expect(c.optimal["astar-landmark-cut"]).toEqual({ total: 2, harbour: 2, workshop: 0 });
     expect(c.runs["sat-forall"]).toEqual({ total: 2, harbour: 2, workshop: 0 });
-    const { text } = textSummary(rs, ["sat-forall", "astar-lmcut"]);
-    expect(text).toContain("configuration  harbour (2)  workshop (1)  total (3)");
+    const { text } = textSummary(rs, ["sat-forall", "astar-landmark-cut"]);
+    expect(text).toMatch(/configuration +harbour \(2\)  workshop \(1\)  total \(3\)/); // first column as wide as the longest name
     // sat-forall did not run on workshop/c: the cell says how many runs there were
     expect(text).toMatch(/sat-forall\s+1\s+0 of 0\s+1 of 2/);
-    expect(text).toMatch(/astar-lmcut\s+2\s+0\s+2/);
+    expect(text).toMatch(/astar-landmark-cut\s+2\s+0\s+2/);
   });
 
   it("median, geometric mean and tightness ratios", () => {
@@ -43,9 +43,9 @@ describe("agreement", () => {
   it("is quiet when proven optima agree", () => {
     const rs = [
       rec({ instance: "h/a", configuration: "sat-forall", cost: 22, lowerBound: 22 }),
-      rec({ instance: "h/a", configuration: "astar-lmcut", cost: 22, lowerBound: 22 }),
+      rec({ instance: "h/a", configuration: "astar-landmark-cut", cost: 22, lowerBound: 22 }),
       rec({ instance: "h/b", configuration: "sat-forall", status: "feasible", cost: 30, lowerBound: 25 }),
-      rec({ instance: "h/b", configuration: "astar-lmcut", cost: 28 }),
+      rec({ instance: "h/b", configuration: "astar-landmark-cut", cost: 28 }),
     ];
     const a = checkAgreement(rs);
     expect(a.findings).toEqual([]);
@@ -58,14 +58,14 @@ describe("agreement", () => {
   });
 
   it("flags a planted disagreement on a proven optimum loudly", () => {
-    const rs = [rec({ instance: "h/a", configuration: "sat-forall", cost: 21 }), rec({ instance: "h/a", configuration: "astar-lmcut", cost: 22 })];
+    const rs = [rec({ instance: "h/a", configuration: "sat-forall", cost: 21 }), rec({ instance: "h/a", configuration: "astar-landmark-cut", cost: 22 })];
     const a = checkAgreement(rs);
     expect(a.findings).toHaveLength(1);
-    expect(a.findings[0]).toMatchObject({ kind: "optimum-disagreement", instance: "h/a", configurations: ["sat-forall", "astar-lmcut"] });
+    expect(a.findings[0]).toMatchObject({ kind: "optimum-disagreement", instance: "h/a", configurations: ["sat-forall", "astar-landmark-cut"] });
     expect(a.instances[0].verdict).toBe("DISAGREE");
     const { text } = textSummary(rs);
     expect(text).toContain("!!  1 DISAGREEMENT BETWEEN CONFIGURATIONS — THIS MEANS A BUG IN PLUMBLINE");
-    expect(text).toContain("h/a: proven optimal costs differ: sat-forall = 21, astar-lmcut = 22");
+    expect(text).toContain("h/a: proven optimal costs differ: sat-forall = 21, astar-landmark-cut = 22");
     expect(text).toMatch(/h\/a\s+21\*\s+22\*\s+DISAGREE !!/);
   });
 
@@ -74,9 +74,9 @@ describe("agreement", () => {
       rec({ instance: "h/a", configuration: "sat-forall", cost: 22, lowerBound: 22 }),
       rec({ instance: "h/a", configuration: "gbfs", status: "feasible", cost: 20 }),
       rec({ instance: "h/b", configuration: "sat-forall", status: "unknown", cost: null, lowerBound: 31 }),
-      rec({ instance: "h/b", configuration: "astar-lmcut", status: "feasible", cost: 30 }),
+      rec({ instance: "h/b", configuration: "astar-landmark-cut", status: "feasible", cost: 30 }),
       rec({ instance: "h/c", configuration: "sat-forall", status: "unsolvable", cost: null }),
-      rec({ instance: "h/c", configuration: "astar-lmcut", status: "optimal", cost: 4 }),
+      rec({ instance: "h/c", configuration: "astar-landmark-cut", status: "optimal", cost: 4 }),
       rec({ instance: "h/d", configuration: "sat-seq", status: "optimal", cost: 4, audit: "invalid", auditReason: "check proof failed" }),
     ];
     const kinds = checkAgreement(rs).findings.map((f) => `${f.instance} ${f.kind}`);

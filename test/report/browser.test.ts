@@ -55,11 +55,11 @@ describe.skipIf(!have)(`reports in headless Chromium${have ? "" : " (skipped: /u
     const dir = mkdtempSync(join(tmpdir(), "plumbline-report-"));
     const records = [
       rec({ instance: "harbour/small-s1", configuration: "sat-forall", cost: 96, lowerBound: 96, horizon: 120, planLength: 21, audit: "valid", auditSeconds: 0.8, proofBytes: 48_213, seconds: 3.2, timeline: [{ seconds: 0.4, upper: 130, lower: 12 }, { seconds: 1.1, upper: 104, lower: 60 }, { seconds: 3.0, upper: 96, lower: 96 }] }),
-      rec({ instance: "harbour/small-s1", configuration: "astar-lmcut", cost: 96, lowerBound: 96, seconds: 2.1, timeline: [{ seconds: 2.1, upper: 96, lower: 96 }] }),
+      rec({ instance: "harbour/small-s1", configuration: "astar-landmark-cut", cost: 96, lowerBound: 96, seconds: 2.1, timeline: [{ seconds: 2.1, upper: 96, lower: 96 }] }),
       rec({ instance: "workshop/tiny-s1", configuration: "sat-forall", cost: 8, lowerBound: 8, horizon: 9, planLength: 6, audit: "valid", seconds: 0.7, timeline: [{ seconds: 0.3, upper: 11, lower: 0 }, { seconds: 0.6, upper: 8, lower: 8 }] }),
-      rec({ instance: "workshop/tiny-s1", configuration: "astar-lmcut", cost: 8, lowerBound: 8, seconds: 0.5 }),
+      rec({ instance: "workshop/tiny-s1", configuration: "astar-landmark-cut", cost: 8, lowerBound: 8, seconds: 0.5 }),
       rec({ instance: "warehouse/small-s2", configuration: "sat-forall", status: "unknown", cost: null, reason: "killed: still running 66.0 s after start (time limit 60 s)", seconds: 66 }),
-      rec({ instance: "warehouse/small-s2", configuration: "astar-lmcut", cost: 5, lowerBound: 5, seconds: 0.9 }),
+      rec({ instance: "warehouse/small-s2", configuration: "astar-landmark-cut", cost: 5, lowerBound: 5, seconds: 0.9 }),
     ];
     const file = join(dir, "report.html");
     writeFileSync(file, benchReportHtml(records, META));
@@ -67,7 +67,7 @@ describe.skipIf(!have)(`reports in headless Chromium${have ? "" : " (skipped: /u
     try {
       const coverage = await page.locator("#coverage table").innerText();
       expect(coverage).toContain("sat-forall");
-      expect(coverage).toContain("astar-lmcut");
+      expect(coverage).toContain("astar-landmark-cut");
       expect(coverage).toContain("total (3)");
       expect(await page.locator("#agreement").innerText()).toContain("No contradictions");
       // the XML check below can fail: a broken document is reported by the same parser

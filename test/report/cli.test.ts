@@ -17,7 +17,7 @@ function benchDir(records: ReturnType<typeof rec>[]): string {
 
 describe("plumbline report", () => {
   it("rewrites a bench folder's report and prints its tables", async () => {
-    const dir = benchDir([rec({ instance: "h/a", configuration: "sat-forall", cost: 7 }), rec({ instance: "h/a", configuration: "astar-lmcut", cost: 7 })]);
+    const dir = benchDir([rec({ instance: "h/a", configuration: "sat-forall", cost: 7 }), rec({ instance: "h/a", configuration: "astar-landmark-cut", cost: 7 })]);
     const r = await cli(["report", dir]);
     expect(r.code, r.stderr).toBe(0);
     expect(r.stdout).toMatch(/sat-forall\s+1\s+1/);
@@ -26,7 +26,7 @@ describe("plumbline report", () => {
   });
 
   it("exits 1 when a planted disagreement is in the results", async () => {
-    const dir = benchDir([rec({ instance: "h/a", configuration: "sat-forall", cost: 7 }), rec({ instance: "h/a", configuration: "astar-lmcut", cost: 8 })]);
+    const dir = benchDir([rec({ instance: "h/a", configuration: "sat-forall", cost: 7 }), rec({ instance: "h/a", configuration: "astar-landmark-cut", cost: 8 })]);
     const r = await cli(["report", dir, "--json"]);
     expect(r.code).toBe(1);
     expect(r.json().findings[0]).toMatchObject({ kind: "optimum-disagreement", instance: "h/a" });

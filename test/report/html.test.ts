@@ -19,9 +19,9 @@ function externalRefs(html: string): string[] {
 describe("bench report HTML", () => {
   const records = [
     rec({ instance: "harbour/a", configuration: "sat-forall", cost: 22, lowerBound: 22, horizon: 40, planLength: 14, audit: "valid", auditSeconds: 0.4, proofBytes: 12345, timeline: [{ seconds: 0.2, upper: 30, lower: 0 }, { seconds: 0.9, upper: 22, lower: 22 }] }),
-    rec({ instance: "harbour/a", configuration: "astar-lmcut", cost: 22, lowerBound: 22, timeline: [{ seconds: 1, upper: 22, lower: 22 }] }),
+    rec({ instance: "harbour/a", configuration: "astar-landmark-cut", cost: 22, lowerBound: 22, timeline: [{ seconds: 1, upper: 22, lower: 22 }] }),
     rec({ instance: "workshop/b", configuration: "sat-forall", status: "unknown", cost: null, reason: "killed: still running" }),
-    rec({ instance: "workshop/b", configuration: "astar-lmcut", cost: 9 }),
+    rec({ instance: "workshop/b", configuration: "astar-landmark-cut", cost: 9 }),
   ];
 
   it("has the tables and charts a reader looks for", () => {
@@ -46,7 +46,7 @@ describe("bench report HTML", () => {
   });
 
   it("puts a red alarm first when configurations disagree", () => {
-    const bad = [rec({ instance: "h/a", configuration: "sat-forall", cost: 21 }), rec({ instance: "h/a", configuration: "astar-lmcut", cost: 22 })];
+    const bad = [rec({ instance: "h/a", configuration: "sat-forall", cost: 21 }), rec({ instance: "h/a", configuration: "astar-landmark-cut", cost: 22 })];
     const html = benchReportHtml(bad, META);
     const alarm = html.indexOf('<div class="alarm" id="findings">');
     expect(alarm).toBeGreaterThan(0);

@@ -40,7 +40,7 @@ export const recordsArb = fc
   .array(
     fc.record({
       instance: nameArb,
-      configuration: fc.constantFrom("sat-forall", "astar-lmcut", "c<&>\""),
+      configuration: fc.constantFrom("sat-forall", "astar-landmark-cut", "c<&>\""),
       status: statusArb,
       cost: costArb,
       lowerBound: costArb,
@@ -56,4 +56,4 @@ export const recordsArb = fc
     return xs.filter((x) => !seen.has(`${x.instance}@${x.configuration}`) && !!seen.add(`${x.instance}@${x.configuration}`)).map((x) => rec(x));
   });
 
-export const META: BenchMeta = { suite: "demo", suiteFile: "/x/demo.json", configurations: ["sat-forall", "astar-lmcut"], timeLimit: 60, memoryLimit: 2048, jobs: 2, createdAt: "2026-01-01T00:00:00.000Z", toolVersion: "0.1.0", node: "v20", host: "box", cpus: 2, runs: 4 };
+export const META: BenchMeta = { suite: "demo", suiteFile: "/x/demo.json", configurations: ["sat-forall", "astar-landmark-cut"], timeLimit: 60, memoryLimit: 2048, jobs: 2, createdAt: "2026-01-01T00:00:00.000Z", toolVersion: "0.1.0", node: "v20", host: "box", cpus: 2, runs: 4 };

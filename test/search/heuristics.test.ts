@@ -47,7 +47,7 @@ function checkAllStates(task: Task, dominance: boolean): void {
     const facts = [...s].sort((x, y) => x - y);
     const hmax = evaluateState(task, "max", facts);
     const hadd = evaluateState(task, "add", facts);
-    const lmcut = evaluateState(task, "landmark-cut", facts);
+    const hLandmarkCut = evaluateState(task, "landmark-cut", facts);
     const hff = evaluateState(task, "ff", facts);
     const blind = evaluateState(task, "blind", facts);
     const opt = optimalCost(withInit(task, facts));
@@ -57,9 +57,9 @@ function checkAllStates(task: Task, dominance: boolean): void {
     expect(hadd).toBe(fixpointH(task, s, "sum"));
     // admissibility of h-max and landmark-cut (source: Helmert & Domshlak 2009)
     expect(hmax).toBeLessThanOrEqual(hstar);
-    expect(lmcut).toBeLessThanOrEqual(hstar);
+    expect(hLandmarkCut).toBeLessThanOrEqual(hstar);
     expect(blind).toBeLessThanOrEqual(hstar);
-    expect(lmcut).toBeGreaterThanOrEqual(hmax); // by construction: max(landmark sum, h-max)
+    expect(hLandmarkCut).toBeGreaterThanOrEqual(hmax); // by construction: max(landmark sum, h-max)
     // the landmark sum alone: admissible always; dominates h-max on STRIPS with negative
     // preconditions dropped (source: Helmert & Domshlak 2009)
     const raw = lmRaw.evaluate(packFacts(facts, ct.words), 0);
@@ -68,7 +68,7 @@ function checkAllStates(task: Task, dominance: boolean): void {
     if (dominance) expect(sum).toBeGreaterThanOrEqual(hmax);
     // a dead end for one relaxation heuristic is a dead end for all (same relaxed reachability)
     expect(Number.isFinite(hff)).toBe(Number.isFinite(hmax));
-    expect(Number.isFinite(lmcut)).toBe(Number.isFinite(hmax));
+    expect(Number.isFinite(hLandmarkCut)).toBe(Number.isFinite(hmax));
     // h-add ≥ h-max: a sum of non-negative terms is at least their maximum (mathematical fact)
     expect(hadd).toBeGreaterThanOrEqual(hmax);
   }
