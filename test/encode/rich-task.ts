@@ -2,7 +2,9 @@
 // generator lacks — negative preconditions, conditional effects, negative goals, add∩del.
 import fc from "fast-check";
 import type { Action, CondEffect, Task } from "../../src/ground/task.js";
-import { factId, factoredSpecArb, taskFromSpec, type FactoredArbOptions } from "../support/random-task.js";
+import { costArb, factId, factoredSpecArb, taskFromSpec, type FactoredArbOptions } from "../support/random-task.js";
+
+export { costArb, nonTrivial } from "../support/random-task.js";
 
 export interface RichTaskOptions {
   minFacts?: number;
@@ -16,15 +18,6 @@ export interface RichTaskOptions {
   zeroCostShare?: number;
 }
 
-/**
- * A cost in 0..maxCost that is 0 with probability zeroShare: the coin is an unbiased draw
- * from 0..99 (fast-check biases its numbers towards the minimum; through a double in [0, 1)
- * almost every action would be free).
- */
-export function costArb(maxCost: number, zeroShare: number): fc.Arbitrary<number> {
-  return fc.tuple(fc.noBias(fc.nat({ max: 99 })), fc.integer({ min: 1, max: maxCost })).map(([r, c]) => (r < zeroShare * 100 ? 0 : c));
-}
-
 /** Re-draws every action's cost of the tasks of `arb` with costArb. */
 export function withCosts(arb: fc.Arbitrary<Task>, maxCost: number, zeroShare = 0.3): fc.Arbitrary<Task> {
   return arb.chain((t) =>
@@ -33,11 +26,6 @@ export function withCosts(arb: fc.Arbitrary<Task>, maxCost: number, zeroShare = 
       actions: t.actions.map((a, i) => ({ ...a, cost: cs[i] })),
     })),
   );
-}
-
-/** Drops tasks whose goal already holds initially (they make every query trivial). */
-export function nonTrivial(arb: fc.Arbitrary<Task>): fc.Arbitrary<Task> {
-  return arb.filter((t) => !(t.goal.every((f) => t.init.includes(f)) && t.goalNeg.every((f) => !t.init.includes(f))));
 }
 
 export function richTaskArb(o: RichTaskOptions = {}): fc.Arbitrary<Task> {

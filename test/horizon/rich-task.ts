@@ -2,14 +2,9 @@
 // allows: negative preconditions, conditional effects (with negative conditions), zero costs.
 import fc from "fast-check";
 import type { Action, CondEffect, Task } from "../../src/ground/task.js";
-import { taskFromSpec, type FactoredSpec } from "../support/random-task.js";
+import { costArb, taskFromSpec, type FactoredSpec } from "../support/random-task.js";
 
 const sortedUniq = (xs: number[]) => [...new Set(xs)].sort((a, b) => a - b);
-
-/** 0 with probability zeroShare, else 1..maxCost (integers: fast-check skews doubles towards 0). */
-function costArb(maxCost: number, zeroShare: number): fc.Arbitrary<number> {
-  return fc.tuple(fc.nat({ max: 99 }), fc.integer({ min: 1, max: maxCost })).map(([r, c]) => (r < zeroShare * 100 ? 0 : c));
-}
 
 export interface RichOptions {
   minFacts?: number;

@@ -72,10 +72,7 @@ export function withRandomCosts(arb: fc.Arbitrary<Task>, maxCost = 4): fc.Arbitr
   );
 }
 
-/** Tasks whose initial state is not already a goal state. */
-export function nonTrivial(arb: fc.Arbitrary<Task>): fc.Arbitrary<Task> {
-  return arb.filter((t) => !(t.goal.every((f) => t.init.includes(f)) && t.goalNeg.every((f) => !t.init.includes(f))));
-}
+export { nonTrivial } from "../support/random-task.js";
 
 /**
  * The same task with `k` unused facts in front, so its facts land on other bit positions

@@ -97,3 +97,17 @@ export function factoredSpecArb(o: FactoredArbOptions = {}): fc.Arbitrary<Factor
 export function factoredTaskArb(o: FactoredArbOptions = {}): fc.Arbitrary<Task> {
   return factoredSpecArb(o).map(taskFromSpec);
 }
+
+/**
+ * A cost in 0..maxCost that is 0 with probability zeroShare: the coin is an unbiased draw
+ * from 0..99 (fast-check biases its numbers towards the minimum; through a double in [0, 1)
+ * almost every action would be free).
+ */
+export function costArb(maxCost: number, zeroShare: number): fc.Arbitrary<number> {
+  return fc.tuple(fc.noBias(fc.nat({ max: 99 })), fc.integer({ min: 1, max: maxCost })).map(([r, c]) => (r < zeroShare * 100 ? 0 : c));
+}
+
+/** Drops tasks whose goal already holds initially (they make every query trivial). */
+export function nonTrivial(arb: fc.Arbitrary<Task>): fc.Arbitrary<Task> {
+  return arb.filter((t) => !(t.goal.every((f) => t.init.includes(f)) && t.goalNeg.every((f) => !t.init.includes(f))));
+}
