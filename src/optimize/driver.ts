@@ -13,6 +13,7 @@ import { Budget, type StopReason } from "./budget.js";
 import { estimateFormula } from "./estimate.js";
 import { resolveEncoding, specFor, type EncodingChoice } from "./encoding-choice.js";
 import { boundSettings, buildFormula, formulaId, type Formula, type FormulaSpec } from "./formula.js";
+import { incumbentIds } from "./incumbent.js";
 import { checkPlan, dropRedundant, InternalError, toGroundIds, type CheckedPlan } from "./plan-check.js";
 import { Progress } from "./progress.js";
 import { builtinSession, externalSession, makeWorkDir, type SatSession } from "./sat-session.js";
@@ -64,9 +65,9 @@ class Run {
     this.timeline.push({ seconds: this.budget.elapsed(), kind, upper: this.best?.cost ?? null, lower: this.lower, detail });
   }
 
-  /** Records a new best plan (ids of the prepared task), validated on the lifted model. */
-  improve(workIds: readonly number[], origin: string): void {
-    const plan = checkPlan(this.model, this.task, dropRedundant(this.task, toGroundIds(this.prepared, workIds)), origin);
+  /** Records a new best plan (ids of the prepared task, or of the ground task with `ground`), validated on the lifted model. */
+  improve(workIds: readonly number[], origin: string, ground = false): void {
+    const plan = checkPlan(this.model, this.task, dropRedundant(this.task, ground ? workIds : toGroundIds(this.prepared, workIds)), origin);
     if (this.best !== null && plan.cost >= this.best.cost) throw new InternalError(`${origin} returned a plan of cost ${plan.cost}, not cheaper than ${this.best.cost}`);
     if (plan.cost < this.lower) throw new InternalError(`${origin} returned a plan of cost ${plan.cost} below the proven lower bound ${this.lower}`);
     this.best = plan;
@@ -185,13 +186,18 @@ async function drive(run: Run): Promise<OptimizeOutcome> {
   run.event("lower-bound", `landmark-cut ${run.lower}`);
   run.progress.say(`lower bound ${run.lower} (landmark-cut); ${run.prepared.task.facts.length} facts, ${run.prepared.task.actions.length} actions after pruning`);
 
-  // 2. first plan by GBFS
-  const firstBudget = (run.opts.firstPlanSeconds ?? Math.min(30, run.budget.left() / 10)) * 1000;
-  const g = gbfs(run.prepared.task, { deadline: Math.min(run.budget.deadline, Date.now() + firstBudget), signal: run.budget.signal });
+  // 2. first plan: the caller's incumbent when it is a plan of this task, else GBFS
+  const incumbent = run.opts.incumbent ? incumbentIds(task, run.opts.incumbent) : null;
+  if (run.opts.incumbent && !incumbent) run.notes.push("the given incumbent is not a plan of this task; GBFS looks for a first plan instead");
   let exhausted = false;
-  if (g.status === "solved") run.improve(g.plan!, "GBFS");
-  else if (g.status === "unsolvable") exhausted = true;
-  else run.progress.say(`GBFS found no plan within its budget (${g.stopReason ?? "limit"}); trying SAT at growing horizons`);
+  if (incumbent) run.improve(incumbent, "incumbent", true);
+  else {
+    const firstBudget = (run.opts.firstPlanSeconds ?? Math.min(30, run.budget.left() / 10)) * 1000;
+    const g = gbfs(run.prepared.task, { deadline: Math.min(run.budget.deadline, Date.now() + firstBudget), signal: run.budget.signal });
+    if (g.status === "solved") run.improve(g.plan!, "GBFS");
+    else if (g.status === "unsolvable") exhausted = true;
+    else run.progress.say(`GBFS found no plan within its budget (${g.stopReason ?? "limit"}); trying SAT at growing horizons`);
+  }
 
   // 3. no plan yet: reachability at growing horizons, up to the plain-reachability threshold
   if (run.best === null) {

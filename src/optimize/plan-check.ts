@@ -28,7 +28,7 @@ export class InternalError extends Error {
 }
 
 /** Runs a plan of action ids on the Task, leaving out positions in `skip`; goal reached? */
-function reachesGoal(task: Task, ids: readonly number[], skip: ReadonlySet<number>): boolean {
+export function reachesGoal(task: Task, ids: readonly number[], skip: ReadonlySet<number> = new Set()): boolean {
   const s = new Uint8Array(task.facts.length);
   for (const f of task.init) s[f] = 1;
   for (let i = 0; i < ids.length; i++) {

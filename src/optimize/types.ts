@@ -46,6 +46,13 @@ export interface OptimizeOptions {
   proofChecker?: ProofChecker;
   /** Quick SAT queries at short horizons before the proof formula (default true). */
   probes?: boolean;
+  /**
+   * A known plan (plan-file lines "(drive t1 a b)") to start from instead of GBFS's first plan,
+   * e.g. a recorded plan re-judged against a changed model. Used only when it is a plan of the
+   * task (steps pruned as irrelevant left out; validated on the lifted model like every plan);
+   * otherwise a note says so and GBFS runs.
+   */
+  incumbent?: readonly string[];
 }
 
 export interface TimelineEvent {
