@@ -94,6 +94,7 @@ export {
   boundsChart,
   tightnessChart,
   planTimelineChart,
+  junitXml,
   type RunRecord,
   type RunStatus,
   type BenchMeta,
@@ -141,4 +142,4 @@ export {
   type FormulaSpec,
   type CheckedPlan,
 } from "./optimize/index.js";
-export { writeCertificate, auditCertificate, dratChecker, FILES as CERTIFICATE_FILES, FORMAT_VERSION as CERTIFICATE_FORMAT_VERSION, type AuditReport, type AuditCheck, type CertificateJson } from "./certify/index.js";
+export { writeCertificate, auditCertificate, auditMany, bulkExitCode, dratChecker, type BulkEntry, type BulkVerdict, FILES as CERTIFICATE_FILES, FORMAT_VERSION as CERTIFICATE_FORMAT_VERSION, type AuditReport, type AuditCheck, type CertificateJson } from "./certify/index.js";

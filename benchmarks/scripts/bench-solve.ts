@@ -111,7 +111,8 @@ for (const inst of list) for (const encoding of encodings) {
   let auditSeconds: number | null = null;
   if (existsSync(join(cert, "certificate.json"))) {
     const a = run(["audit", cert, "--json", "--quiet"], timeLimit);
-    audit = a.json ? (a.json.valid ? "valid" : "REJECTED") : `error (exit ${a.code})`;
+    const entry = Array.isArray(a.json) ? a.json[0] : a.json; // audit --json prints one object per certificate, in an array
+    audit = entry ? (entry.valid ? "valid" : "REJECTED") : `error (exit ${a.code})`;
     auditSeconds = a.seconds;
     if (cnfOut && j?.how === "horizon-unsat") {
       const c = JSON.parse(readFileSync(join(cert, "certificate.json"), "utf8"));

@@ -3,10 +3,11 @@
 // it, and returns the result record; the run's files stay in its own folder.
 import { existsSync, mkdirSync, readdirSync, rmSync, statSync, writeFileSync } from "node:fs";
 import { join } from "node:path";
+import { singleAuditJson } from "../report/certificate-view.js";
 import type { AuditStatus, RunRecord } from "../report/record.js";
 import { runChild, type ChildOutcome } from "./child.js";
 import type { Configuration, Limits, RunFiles } from "./configs.js";
-import { finalPoint, jsonOf, parseOutcome } from "./outcome.js";
+import { finalPoint, parseOutcome } from "./outcome.js";
 import { cliCommand } from "./paths.js";
 
 export interface RunSpec {
@@ -79,7 +80,7 @@ async function auditCertificate(certDir: string, opts: RunOptions, runDir: strin
 
 /** valid / invalid from the audit's JSON and exit code; anything else is unknown with a reason. */
 export function interpretAudit(o: ChildOutcome): AuditOutcome {
-  const json = jsonOf(o.stdout);
+  const json = singleAuditJson(o.stdout);
   if (o.killed) return { audit: "unknown", seconds: o.seconds, reason: `audit killed (${o.killed} limit)` };
   if (o.exitCode === 3) return { audit: "unknown", seconds: o.seconds, reason: "audit stopped by its time limit before the proof was checked" };
   if (json && typeof json.valid === "boolean" && (o.exitCode === 0 || o.exitCode === 1)) {

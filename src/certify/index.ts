@@ -4,3 +4,5 @@ export { writeCertificate, sha256, sha256File, type WrittenCertificate } from ".
 export { auditCertificate, readCertificateJson, firstDifference, type AuditReport, type AuditCheck, type AuditOptions } from "./audit.js";
 export { FORMAT_VERSION, FILES, CAUTION, CNF_FORM, type CertificateJson } from "./format.js";
 export { dratChecker } from "./proof-check.js";
+export { auditMany, auditDirs, bulkExitCode, entryOf, stoppedEarly, GRACE_SECONDS, type BulkEntry, type BulkVerdict, type BulkOptions } from "./bulk.js";
+export { discoverCertificates, type Discovered } from "./discover.js";

@@ -116,6 +116,22 @@ export function readCertificateView(dir: string, timelineOf: (cert: Record<strin
   return view;
 }
 
+/**
+ * The one certificate's object in `plumbline audit --json` output: the array's only element, or
+ * the object earlier versions printed; null for anything else (several certificates, not JSON).
+ */
+export function singleAuditJson(text: string): Record<string, unknown> | null {
+  const t = text.trim();
+  let v: unknown;
+  try {
+    v = JSON.parse(t);
+  } catch {
+    return null;
+  }
+  if (Array.isArray(v)) v = v.length === 1 ? v[0] : null;
+  return isObj(v) ? v : null;
+}
+
 /** Audit JSON (from `plumbline audit --json`) → status and a list of named checks. */
 export function auditViewOf(json: Record<string, unknown> | null, source: AuditView["source"], seconds: number | null, note: string | null = null): AuditView {
   if (!json || typeof json.valid !== "boolean") return { status: source === "none" ? "none" : "unknown", source, seconds, checks: [], note };

@@ -31,7 +31,8 @@ describe("plumbline solve + audit", () => {
 
     const a = await cli(["audit", cert, "--json"]);
     expect(a.code).toBe(0);
-    expect(a.json()).toMatchObject({ valid: true, claim: { status: "optimal", how: "horizon-unsat" }, cost: 20 });
+    expect(a.json()).toHaveLength(1);
+    expect(a.json()[0]).toMatchObject({ valid: true, verdict: "valid", claim: { status: "optimal", how: "horizon-unsat" }, cost: 20 });
     const human = await cli(["audit", cert]);
     expect(human.stdout).toMatch(/^valid/);
 
@@ -41,7 +42,7 @@ describe("plumbline solve + audit", () => {
     fs.writeFileSync(path.join(cert, "certificate.json"), JSON.stringify(json));
     const bad = await cli(["audit", cert, "--json"]);
     expect(bad.code).toBe(1);
-    expect(bad.json().checks.find((c: { name: string }) => c.name === "plan-cost").ok).toBe(false);
+    expect(bad.json()[0].checks.find((c: { name: string }) => c.name === "plan-cost").ok).toBe(false);
     expect((await cli(["audit", path.join(work, "nowhere")])).code).toBe(2);
   });
 
@@ -137,7 +138,7 @@ describe("plumbline solve --sat external:CMD", () => {
     const r = await cli(["solve", H("domain.pddl"), H("problem-01.pddl"), "--json", "--sat", own, "--certificate", cert]);
     expect(r.code).toBe(0);
     expect(r.json()).toMatchObject({ status: "optimal", cost: 20, proof: { kind: "drat", engine: "external" } });
-    expect((await cli(["audit", cert, "--json"])).json().valid).toBe(true);
+    expect((await cli(["audit", cert, "--json"])).json()[0].valid).toBe(true);
   }, 60_000);
 
   for (const mode of ["no-proof", "bad-proof"]) {

@@ -1,33 +1,92 @@
-// `plumbline audit DIR`: re-checks a certificate from its input files alone and names every
-// check that passed or failed. Wiring only; the work is in src/certify/audit.ts.
+// `plumbline audit PATH...`: re-checks certificates from their input files alone — one folder, or
+// every certificate below some folders, N at a time — with a summary table, JSON and JUnit XML.
 import type { Command } from "commander";
-import { auditCertificate } from "../../certify/index.js";
+import { auditMany, bulkExitCode, type BulkEntry } from "../../certify/index.js";
+import { formatSeconds, formatTable, junitXml } from "../../report/index.js";
+import { writeFileAtomic } from "../../util/files.js";
 import { withCommonOptions, type CliContext } from "../context.js";
-import { deadlineFrom } from "../options.js";
+import { positiveNumber, positiveOption } from "../options.js";
+
+interface AuditCliOptions {
+  json?: boolean;
+  quiet?: boolean;
+  verbose?: boolean;
+  timeLimit?: string;
+  jobs?: string;
+  junit?: string;
+}
+
+const VERDICT_TEXT: Record<BulkEntry["verdict"], string> = { valid: "valid", rejected: "REJECTED", unfinished: "not finished", unreadable: "unreadable", error: "ERROR" };
+
+/** One JSON object per certificate (the --json array's elements). */
+function entryJson(e: BulkEntry): Record<string, unknown> {
+  return { dir: e.dir, verdict: e.verdict, valid: e.verdict === "valid", claim: e.claim, cost: e.cost, seconds: e.seconds, failed: e.failed, reason: e.reason, checks: e.checks };
+}
+
+function details(e: BulkEntry, all: boolean): string[] {
+  const lines = [`${e.dir}: ${VERDICT_TEXT[e.verdict]}${e.reason ? ` — ${e.reason}` : ""}`];
+  for (const c of e.checks) if (all || (!c.ok && !c.skipped)) lines.push(`  ${c.ok ? "ok  " : c.skipped ? "skip" : "FAIL"}  ${c.name}: ${c.detail}`);
+  return lines;
+}
+
+/** The first line: the overall verdict (for one certificate, its claim and how it is proven). */
+function headline(entries: readonly BulkEntry[]): string {
+  const bad = entries.filter((e) => e.verdict !== "valid");
+  if (bad.length === 0) {
+    const e = entries[0];
+    return entries.length === 1 ? `valid — ${e.claim?.status}${e.cost !== null ? ` (cost ${e.cost})` : ""}, proven by ${e.claim?.how}` : `valid — all ${entries.length} certificates`;
+  }
+  const worst = (["error", "rejected", "unreadable", "unfinished"] as const).find((v) => bad.some((e) => e.verdict === v))!;
+  const what = bad.map((e) => (e.verdict === "rejected" ? `${e.dir} (${e.failed.join(", ")})` : `${e.dir} (${VERDICT_TEXT[e.verdict]})`));
+  return `${VERDICT_TEXT[worst].toUpperCase()} — ${bad.length} of ${entries.length}: ${what.join("; ")}`;
+}
 
 export function registerAudit(program: Command, ctx: CliContext): void {
   withCommonOptions(
     program
       .command("audit")
       .description(
-        "re-check a certificate directory written by 'solve --certificate', trusting nothing but its domain and problem files:\n" +
+        "re-check certificates written by 'solve --certificate', trusting nothing but their domain and problem files:\n" +
           "re-parse, re-ground, replay the plan, recompute the horizon and its derivation, rebuild the CNF and compare its hash,\n" +
           "check the DRAT proof with the independent checker (or the landmark record). A certificate of an earlier version whose\n" +
           "recorded horizon is above today's recomputed threshold is accepted (every plan that short fits into its steps).\n" +
-          "Exit 0 valid, 1 rejected, 2 unreadable directory.",
+          "Each PATH is a certificate folder or a folder searched recursively for them. Prints a table (folder, claim, cost,\n" +
+          "verdict, seconds). Exit 0 all valid, 1 any rejected, 2 any unreadable (or no certificate under a PATH),\n" +
+          "3 any not finished within --time-limit (in that order of precedence), 4 an internal error.",
       )
-      .argument("<dir>", "certificate directory (holds certificate.json)")
-      .option("--time-limit <seconds>", "give up checking the proof after this many seconds (exit 3)"),
-  ).action((dir: string, opts: { json?: boolean; quiet?: boolean; verbose?: boolean; timeLimit?: string }) => {
+      .argument("<paths...>", "certificate folders (holding certificate.json), or folders to search for them")
+      .option("--time-limit <seconds>", "per certificate: give up on a certificate after this many seconds (verdict 'not finished', exit 3)")
+      .option("--jobs <n>", "audit this many certificates at once, each in its own process (default 1)")
+      .option("--junit <file>", "also write the results as JUnit XML (one testcase per certificate) for a CI system"),
+  ).action(async (paths: string[], opts: AuditCliOptions) => {
     ctx.configure(opts);
-    const deadline = deadlineFrom(opts.timeLimit);
-    const r = auditCertificate(dir, { deadline, signal: ctx.signal });
-    const stopped = !r.valid && r.checks.some((c) => c.name === "proof-check" && !c.ok && /could not be checked/.test(c.detail));
-    ctx.exitCode = r.valid ? 0 : stopped ? 3 : 1;
-    ctx.result({ valid: r.valid, dir: r.dir, claim: r.claim, cost: r.cost, checks: r.checks, seconds: r.seconds });
-    const lines = [r.valid ? `valid — ${r.claim?.status}${r.cost !== null ? ` (cost ${r.cost})` : ""}, proven by ${r.claim?.how}` : `REJECTED — ${r.checks.filter((c) => !c.ok && !c.skipped).map((c) => c.name).join(", ")}`, ""];
-    for (const c of r.checks) lines.push(`${c.ok ? "ok  " : c.skipped ? "skip" : "FAIL"}  ${c.name}: ${c.detail}`);
-    lines.push("", `(${r.seconds.toFixed(2)} s; a valid certificate speaks about the model as written — plans are only as good as the model)`);
+    const timeLimit = positiveNumber("--time-limit", opts.timeLimit);
+    const jobs = positiveOption("--jobs", opts.jobs, 1);
+    const started = new Date();
+    const entries = await auditMany(paths, {
+      jobs,
+      timeLimit,
+      signal: ctx.signal,
+      onEntry: (e, done, total) => ctx.note(`[${done}/${total}] ${e.dir}: ${VERDICT_TEXT[e.verdict]} (${formatSeconds(e.seconds)})`),
+    });
+    if (opts.junit) {
+      const properties: Record<string, string> = { jobs: String(jobs) };
+      if (timeLimit !== undefined) properties["time-limit"] = `${timeLimit} s per certificate`;
+      writeFileAtomic(opts.junit, junitXml(entries, { started, properties }));
+    }
+    ctx.exitCode = bulkExitCode(entries);
+    ctx.result(entries.map(entryJson));
+    const table = formatTable({
+      headers: ["folder", "claim", "cost", "verdict", "seconds"],
+      rows: entries.map((e) => [e.dir, e.claim ? `${e.claim.status} (${e.claim.how})` : "–", e.cost === null ? "–" : String(e.cost), VERDICT_TEXT[e.verdict], e.seconds.toFixed(2)]),
+      align: ["left", "left", "right", "left", "right"],
+    });
+    const count = (v: BulkEntry["verdict"]) => entries.filter((e) => e.verdict === v).length;
+    const lines = [headline(entries), "", table, "", `${entries.length} certificate${entries.length === 1 ? "" : "s"}: ${count("valid")} valid, ${count("rejected")} rejected, ${count("unfinished")} not finished, ${count("unreadable") + count("error")} unreadable or failed to run`];
+    const one = entries.length === 1;
+    for (const e of entries) if (one || opts.verbose || e.verdict !== "valid") lines.push("", ...details(e, one || !!opts.verbose));
+    if (opts.junit) lines.push("", `JUnit XML written to ${opts.junit}`);
+    lines.push("", "(a valid certificate speaks about the model as written — plans are only as good as the model)");
     ctx.out(lines.join("\n"));
   });
 }

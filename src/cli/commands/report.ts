@@ -4,9 +4,9 @@
 import { existsSync, readFileSync } from "node:fs";
 import { basename, dirname, join, resolve } from "node:path";
 import type { Command } from "commander";
-import { jsonOf, latestById, readResults } from "../../bench/index.js";
+import { latestById, readResults } from "../../bench/index.js";
 import { auditCertificate } from "../../certify/index.js";
-import { auditViewOf, certificateReportHtml, detectReportDir, findField, normaliseTimeline, readCertificateView, writeBenchReport, type AuditView, type BenchMeta } from "../../report/index.js";
+import { auditViewOf, certificateReportHtml, singleAuditJson, detectReportDir, findField, normaliseTimeline, readCertificateView, writeBenchReport, type AuditView, type BenchMeta } from "../../report/index.js";
 import { PlumblineError } from "../../util/errors.js";
 import { writeFileAtomic } from "../../util/files.js";
 import { withCommonOptions, type CliContext } from "../context.js";
@@ -59,7 +59,7 @@ export function registerReport(program: Command, ctx: CliContext): void {
     let audit: AuditView;
     if (opts.audit === false) {
       const recorded = join(dirname(resolve(dir)), "audit.json");
-      audit = existsSync(recorded) ? auditViewOf(jsonOf(readFileSync(recorded, "utf8")), "recorded", null, `from ${recorded}`) : auditViewOf(null, "none", null, "--no-audit given and no recorded audit found");
+      audit = existsSync(recorded) ? auditViewOf(singleAuditJson(readFileSync(recorded, "utf8")), "recorded", null, `from ${recorded}`) : auditViewOf(null, "none", null, "--no-audit given and no recorded audit found");
     } else {
       const limit = opts.timeLimit === undefined ? 600 : Number(opts.timeLimit);
       if (!(limit > 0)) throw new PlumblineError("usage", `--time-limit expects a positive number of seconds, found '${opts.timeLimit}'`);
