@@ -3,6 +3,7 @@
 import type { Action, Task } from "../ground/task.js";
 import { IdHeap } from "./heap.js";
 import type { Variables } from "./variables.js";
+import { poll } from "../util/limits.js";
 
 export interface DependencyGraph {
   /** Number of variables. */
@@ -59,6 +60,7 @@ export function dependencyGraph(task: Task, vars: Variables, include: (a: Action
     if (w.length === 0) return;
     const r = readVariables(a, vars.varOfFact);
     for (const u of w) {
+      poll("analysis");
       for (const v of r) if (v !== u) sets[v].add(u);
       for (const v of w) if (v !== u) sets[v].add(u);
     }
@@ -83,6 +85,7 @@ export function withComponents(n: number, succ: number[][]): DependencyGraph {
     stack.push(root);
     onStack[root] = 1;
     while (call.length > 0) {
+      poll("analysis");
       const v = call[call.length - 1];
       if (edgePos[v] < succ[v].length) {
         const u = succ[v][edgePos[v]++];
@@ -132,6 +135,7 @@ export function withComponents(n: number, succ: number[][]): DependencyGraph {
   });
   const order: number[] = [];
   while (ready.size > 0) {
+    poll("analysis");
     const c = ready.pop();
     order.push(c);
     for (const d of cChildren[c]) if (--indeg[d] === 0) ready.push(d);

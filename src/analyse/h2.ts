@@ -1,6 +1,7 @@
 // Pair reachability by the h² relaxation (Haslum & Geffner 2000): which facts, and which
 // pairs of facts, may hold together in a reachable state; pairs that cannot are mutexes.
 import type { Action, Task } from "../ground/task.js";
+import { poll } from "../util/limits.js";
 
 /**
  * The result of the pair analysis. Soundness: every pair of facts true together in some
@@ -116,6 +117,7 @@ export function pairReachability(task: Task, opts: H2Options = {}): PairReachabi
     reachChanged = false;
     any = false;
     for (let ai = 0; ai < task.actions.length; ai++) {
+      poll("analysis");
       const a = task.actions[ai];
       if (processed[ai] && !triggered(a, prevChanged, a.pre.length === 0 && prevReachChanged)) continue;
       if (!pairwise(a.pre, a.pre)) continue;
@@ -136,6 +138,7 @@ export function pairReachability(task: Task, opts: H2Options = {}): PairReachabi
       work += W * (a.pre.length + 1 + adds.length);
       for (const p of adds) for (const q of adds) set(p, q);
       for (const p of adds) {
+        poll("analysis");
         const base = p * W;
         for (let w = 0; w < W; w++) {
           let fresh = tmp[w] & ~rows[base + w];

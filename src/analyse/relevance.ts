@@ -1,7 +1,7 @@
 // Goal-relevance (backward) pruning for the bounds: the grounder's Task-level pruning, plus
 // the maps from the pruned task's facts and actions back to the original ones.
 import type { Task } from "../ground/task.js";
-import { pruneIrrelevant } from "../ground/index.js";
+import { pruneIrrelevantMapped } from "../ground/index.js";
 import type { RestrictedTask } from "./restrict.js";
 
 /**
@@ -14,12 +14,5 @@ import type { RestrictedTask } from "./restrict.js";
  * (Tested against the reference Dijkstra in test/analyse.)
  */
 export function relevanceFilter(task: Task): RestrictedTask {
-  const pruned = pruneIrrelevant(task);
-  const factIds = new Map(task.facts.map((f, i) => [f, i]));
-  const actionIds = new Map(task.actions.map((a, i) => [a.name, i]));
-  return {
-    task: pruned,
-    factMap: Int32Array.from(pruned.facts, (f) => factIds.get(f)!),
-    actionMap: Int32Array.from(pruned.actions, (a) => actionIds.get(a.name)!),
-  };
+  return pruneIrrelevantMapped(task);
 }

@@ -3,6 +3,7 @@
 import type { Action, CondEffect, Task } from "../ground/task.js";
 import type { PairReachability } from "./h2.js";
 import { restrictTask, type RestrictedTask } from "./restrict.js";
+import { poll } from "../util/limits.js";
 
 export interface SimplifyResult extends RestrictedTask {
   /** Facts that are never true (pair analysis) or always true (initially true, never deleted). */
@@ -41,6 +42,7 @@ export function simplifyTask(task: Task, pairs: PairReachability): SimplifyResul
   let liveCond: boolean[][] = [];
   // monotone (always-true facts only grow), so this reaches its fixpoint within F rounds
   for (;;) {
+    poll("analysis");
     live = task.actions.map(
       (a) => !meets(a.pre, never) && !meets(a.preNeg, always) && !overlap(a.pre, a.preNeg) && together(a.pre, a.pre),
     );
@@ -98,6 +100,7 @@ export function simplifyTask(task: Task, pairs: PairReachability): SimplifyResul
   let nNever = 0;
   let nAlways = 0;
   for (let f = 0; f < F; f++) {
+    poll("analysis");
     if (never[f]) nNever++;
     if (always[f]) nAlways++;
   }

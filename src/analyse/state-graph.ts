@@ -3,6 +3,7 @@
 import type { Task } from "../ground/task.js";
 import { PackedStateSet, packBits } from "./state-store.js";
 import { applicableAt, applyAction, wordsFor } from "./successor.js";
+import { poll } from "../util/limits.js";
 
 export interface StateGraph {
   task: Task;
@@ -81,6 +82,7 @@ export function buildStateGraph(task: Task, maxStates: number, keepEdge?: (actio
   let edges = 0;
   let exceeded = false;
   for (let i = 0; i < states.size && !exceeded; i++) {
+    poll("exploring states");
     if (i + 1 >= edgeStart.length) {
       const grown = new Int32Array(edgeStart.length * 2);
       grown.set(edgeStart);

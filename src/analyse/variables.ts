@@ -3,6 +3,7 @@
 import type { Task } from "../ground/task.js";
 import type { PairReachability } from "./h2.js";
 import { popcount32 } from "./state-store.js";
+import { poll } from "../util/limits.js";
 
 /**
  * Method (and why): h² mutexes (Haslum & Geffner 2000) on the ground Task, covered greedily
@@ -60,6 +61,7 @@ export function findVariables(task: Task, pairs: PairReachability): Variables {
     const tmp = new Uint32Array(W);
     const degree = new Int32Array(F);
     for (let f = 0; f < F; f++) {
+      poll("analysis");
       if (!pairs.reachable(f)) continue;
       nbrs(f, tmp);
       let d = 0;
@@ -73,6 +75,7 @@ export function findVariables(task: Task, pairs: PairReachability): Variables {
     const cand = new Uint32Array(W);
     const nb = new Uint32Array(W);
     for (const seed of order) {
+      poll("analysis");
       if (covered[seed]) continue;
       const group = [seed];
       covered[seed] = 1;
@@ -80,6 +83,7 @@ export function findVariables(task: Task, pairs: PairReachability): Variables {
       nbrs(seed, cand);
       for (let w = 0; w < W; w++) cand[w] &= uncovered[w];
       for (;;) {
+        poll("analysis");
         const members = bitsOf(cand);
         if (members.length === 0) break;
         let best = -1;
@@ -142,6 +146,7 @@ function exactlyOne(task: Task, facts: number[], varOfFact: Int32Array, id: numb
   const inGroup = (f: number) => varOfFact[f] === id;
   if (task.init.filter(inGroup).length !== 1) return false;
   for (const a of task.actions) {
+    poll("analysis");
     const addsUncond = a.add.some(inGroup);
     if (a.del.some(inGroup) && !addsUncond) return false;
     for (const ce of a.cond) if (ce.del.some(inGroup) && !addsUncond && !ce.add.some(inGroup)) return false;

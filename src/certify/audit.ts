@@ -12,6 +12,7 @@ import { parsePlan, replayPlan } from "../plan/index.js";
 import { checkDrat } from "../proof/index.js";
 import { checkLandmarkCertificate, relaxedReachableWithout, type LandmarkRecord } from "../search/index.js";
 import { PlumblineError } from "../util/errors.js";
+import { isLimitReached, withLimits, type LimitReached } from "../util/limits.js";
 import { FILES, FORMAT_VERSION, type CertificateJson } from "./format.js";
 import { sha256 } from "./write.js";
 
@@ -22,10 +23,14 @@ export interface AuditCheck {
   detail: string;
   /** True when the check could not run because an earlier one failed. */
   skipped?: boolean;
+  /** True when a limit (time, memory, interrupt) stopped the audit at this check: neither passed nor failed. */
+  stopped?: boolean;
 }
 
 export interface AuditReport {
   valid: boolean;
+  /** False when a limit stopped the audit before any check failed and before every check ran: verdict "not finished", never "rejected". */
+  finished: boolean;
   dir: string;
   claim: { status: string; how: string } | null;
   cost: number | null;
@@ -49,6 +54,9 @@ class Checks {
   }
   skip(name: string, why: string): void {
     this.list.push({ name, ok: false, detail: `not checked: ${why}`, skipped: true });
+  }
+  stop(name: string, e: LimitReached): void {
+    this.list.push({ name, ok: false, detail: `not finished: ${e.message}`, stopped: true });
   }
   check(name: string, ok: boolean, good: string, bad: string): boolean {
     if (ok) this.pass(name, good);
@@ -114,19 +122,46 @@ export function readCertificateJson(dir: string): CertificateJson {
 
 const CLAIMS: Record<string, string[]> = { optimal: ["horizon-unsat", "lower-bound"], unsolvable: ["horizon-unsat", "relaxed-unreachable"] };
 
-/** Audits the certificate in `dir`. Throws PlumblineError only when the directory or its JSON is unreadable. */
+/** A limit stops a check by throwing; checks that catch errors must let it through. */
+function passLimit(e: unknown): void {
+  if (isLimitReached(e)) throw e;
+}
+
+/**
+ * Audits the certificate in `dir`. Throws PlumblineError only when the directory or its JSON is
+ * unreadable. `opts.deadline` and `opts.signal` bound the whole audit (the horizon recomputation
+ * and the encoding included): when one stops it, the report says not finished (`finished: false`).
+ */
 export function auditCertificate(dir: string, opts: AuditOptions = {}): AuditReport {
   const t0 = performance.now();
-  const cert = readCertificateJson(dir);
   const c = new Checks();
-  const report = (): AuditReport => ({
-    valid: c.list.length > 0 && c.list.every((x) => x.ok),
+  try {
+    return withLimits({ deadline: opts.deadline, signal: opts.signal }, () => auditWith(c, t0, dir, opts));
+  } catch (e) {
+    if (!isLimitReached(e)) throw e;
+    c.stop("finished", e);
+    const cert = readCertificateJson(dir);
+    return reportOf(c, t0, dir, cert);
+  }
+}
+
+function reportOf(c: Checks, t0: number, dir: string, cert: CertificateJson): AuditReport {
+  // a failed check is a verdict (rejected) even when a limit stopped a later one
+  const finished = !c.list.some((x) => x.stopped) || c.list.some((x) => !x.ok && !x.skipped && !x.stopped);
+  return {
+    valid: finished && c.list.length > 0 && c.list.every((x) => x.ok),
+    finished,
     dir,
     claim: isObj(cert.claim) ? { status: String(cert.claim.status), how: String(cert.claim.how) } : null,
     cost: isObj(cert.plan) && typeof cert.plan.cost === "number" ? cert.plan.cost : null,
     checks: c.list,
     seconds: (performance.now() - t0) / 1000,
-  });
+  };
+}
+
+function auditWith(c: Checks, t0: number, dir: string, opts: AuditOptions): AuditReport {
+  const cert = readCertificateJson(dir);
+  const report = (): AuditReport => reportOf(c, t0, dir, cert);
 
   // --- the record itself -------------------------------------------------------------------
   const claimOk =
@@ -164,6 +199,7 @@ export function auditCertificate(dir: string, opts: AuditOptions = {}): AuditRep
     task = ground(model, { relevance: cert.grounding?.relevance === true });
     c.pass("ground", `${task.facts.length} facts, ${task.actions.length} actions (relevance pruning ${cert.grounding?.relevance === true ? "on" : "off"})`);
   } catch (e) {
+    passLimit(e);
     c.fail("ground", `the inputs do not parse or ground: ${(e as Error).message}`);
     return report();
   }
@@ -195,6 +231,7 @@ function auditPlan(c: Checks, dir: string, cert: CertificateJson, model: Model):
   try {
     r = replayPlan(model, parsePlan(bytes.toString("utf8"), FILES.plan), FILES.plan);
   } catch (e) {
+    passLimit(e);
     c.fail("plan-replay", `${FILES.plan} cannot be read as a plan: ${(e as Error).message}`);
     return;
   }
@@ -224,6 +261,7 @@ function auditLowerBound(c: Checks, dir: string, cert: CertificateJson, task: Ta
     rec = JSON.parse(bytes.toString("utf8")) as LandmarkRecord;
     if (!isObj(rec) || typeof rec.bound !== "number" || !Array.isArray(rec.landmarks)) throw new Error("expected { bound, landmarks }");
   } catch (e) {
+    passLimit(e);
     c.fail("landmark-check", `${FILES.landmarks} is not a landmark record: ${(e as Error).message}`);
     return;
   }
@@ -231,6 +269,7 @@ function auditLowerBound(c: Checks, dir: string, cert: CertificateJson, task: Ta
   try {
     v = checkLandmarkCertificate(task, rec);
   } catch (e) {
+    passLimit(e);
     v = { valid: false, reason: (e as Error).message };
   }
   c.check("landmark-check", v.valid, `${rec.landmarks.length} landmarks re-checked: every plan costs at least ${rec.bound}`, `the landmark record is not valid: ${v.reason ?? "rejected"}`);
@@ -307,6 +346,7 @@ function auditHorizonUnsat(c: Checks, dir: string, cert: CertificateJson, task: 
   try {
     prepared = prepareTask(task);
   } catch (e) {
+    passLimit(e);
     c.fail("encoding", `analysis failed: ${(e as Error).message}`);
     return;
   }
@@ -351,6 +391,7 @@ function auditHorizonUnsat(c: Checks, dir: string, cert: CertificateJson, task: 
     formula = buildFormula(prepared.task, spec);
     units = formula.boundUnits(bound ?? Infinity);
   } catch (e) {
+    passLimit(e);
     c.fail("cnf-hash", `the formula cannot be rebuilt: ${(e as Error).message}`);
     return;
   }
@@ -369,11 +410,9 @@ function auditHorizonUnsat(c: Checks, dir: string, cert: CertificateJson, task: 
   }
   const phash = sha256(proofBytes);
   c.check("proof-hash", phash === pr.sha256, `${FILES.proof} matches its recorded SHA-256 (${proofBytes.length} bytes)`, `${FILES.proof} has SHA-256 ${phash}, the certificate records ${pr.sha256}`);
-  let result;
-  try {
-    result = checkDrat(checkerCnf(formula, units), proofBytes, { deadline: opts.deadline, signal: opts.signal });
-  } catch (e) {
-    c.fail("proof-check", `the proof could not be checked: ${(e as Error).message}`);
+  const result = checkDrat(checkerCnf(formula, units), proofBytes, { deadline: opts.deadline, signal: opts.signal });
+  if (!result.valid && (result.reason ?? "").startsWith("stopped")) {
+    c.list.push({ name: "proof-check", ok: false, detail: "not finished: a limit stopped the proof check before it ended", stopped: true });
     return;
   }
   const why = result.failedLemma ? `lemma ${result.failedLemma.index} fails` : (result.reason ?? "rejected");

@@ -61,14 +61,13 @@ export interface ChildReply {
  * is rejected whatever the time.
  */
 export function stoppedEarly(r: AuditReport): boolean {
-  const failed = r.checks.filter((c) => !c.ok && !c.skipped);
-  return failed.length > 0 && failed.every((c) => c.name === "proof-check" && /stopped:|could not be checked/.test(c.detail));
+  return !r.valid && !r.finished;
 }
 
 /** The entry for a finished audit. */
 export function entryOf(r: AuditReport): BulkEntry {
-  const failed = r.checks.filter((c) => !c.ok && !c.skipped).map((c) => c.name);
-  const unfinished = !r.valid && stoppedEarly(r);
+  const failed = r.checks.filter((c) => !c.ok && !c.skipped && !c.stopped).map((c) => c.name);
+  const unfinished = stoppedEarly(r);
   return {
     dir: r.dir,
     verdict: r.valid ? "valid" : unfinished ? "unfinished" : "rejected",
@@ -77,7 +76,7 @@ export function entryOf(r: AuditReport): BulkEntry {
     seconds: r.seconds,
     checks: r.checks,
     failed: unfinished ? [] : failed,
-    reason: unfinished ? "the proof check did not finish within the time limit" : null,
+    reason: unfinished ? (r.checks.find((c) => c.stopped)?.detail ?? "not finished within the time limit") : null,
   };
 }
 

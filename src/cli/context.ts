@@ -32,7 +32,12 @@ export class CliContext {
     this.json = !!opts.json;
     this.quiet = !!opts.quiet;
     const level = opts.quiet ? "warn" : opts.verbose ? "debug" : (process.env.PLUMBLINE_LOG ?? "info");
-    setLogger(makeLogger(level, this.io.stderr === process.stderr ? 2 : this.io.stderr));
+    setLogger(makeLogger(level, plainLines(this.io.stderr)));
+  }
+
+  /** A warning in plain words on stderr ("plumbline: warning: …"), shown also with --quiet and --json. */
+  warn(text: string): void {
+    this.io.stderr.write(`plumbline: warning: ${text}\n`);
   }
 
   get log(): Logger {
@@ -56,6 +61,24 @@ export class CliContext {
     if (!this.json) return;
     this.io.stdout.write(JSON.stringify(obj, null, 2) + "\n");
   }
+}
+
+const LEVELS: Record<number, string> = { 10: "trace", 20: "debug", 30: "note", 40: "warning", 50: "error", 60: "fatal" };
+
+/** A log destination printing pino's JSON lines as "plumbline: LEVEL: message" (people read stderr, not JSON). */
+function plainLines(out: NodeJS.WritableStream): { write(line: string): void } {
+  return {
+    write(line: string) {
+      let text = line.trim();
+      try {
+        const o = JSON.parse(text) as { level?: number; msg?: string };
+        text = `plumbline: ${LEVELS[o.level ?? 30] ?? "note"}: ${o.msg ?? ""}`;
+      } catch {
+        /* not JSON: print as is */
+      }
+      out.write(text + "\n");
+    },
+  };
 }
 
 /** Adds --json, --quiet and --verbose to a command. */

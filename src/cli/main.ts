@@ -1,16 +1,73 @@
 #!/usr/bin/env node
-// Entry point of the `plumbline` binary: wires SIGINT to an abort signal and exits
-// with the code runCli returns; all logic lives in the library and command files.
-import { runCli } from "./program.js";
+// Entry point of the `plumbline` binary. The command runs in a worker thread; this thread only
+// waits, so SIGINT and SIGTERM are handled at once even while the command computes without pause:
+// the first raises the shared abort flag (the command stops and writes its best result, exit 3),
+// a second one ends the process at once.
+import * as fs from "node:fs";
+import { Worker } from "node:worker_threads";
+import { abortFlagBuffer, requestAbort } from "../util/limits.js";
 
-const controller = new AbortController();
-let interrupted = false;
-process.on("SIGINT", () => {
-  if (interrupted) process.exit(130);
-  interrupted = true;
-  process.stderr.write("\nplumbline: interrupted; finishing up (press Ctrl-C again to quit at once)\n");
-  controller.abort();
+const say = (s: string) => {
+  try {
+    fs.writeSync(2, s);
+  } catch {
+    /* stderr gone */
+  }
+};
+
+/** The worker: compiled JavaScript as is; TypeScript sources (run through tsx) need tsx's loader in the new thread. */
+function startWorker(data: unknown): Worker {
+  const self = import.meta.url;
+  if (!self.endsWith(".ts")) return new Worker(new URL("./worker.js", self), { workerData: data });
+  const loader = import.meta.resolve("tsx/esm/api");
+  const entry = new URL("./worker.ts", self).href;
+  // tsx's own --require/--import hooks must not be inherited: they would load the entry a second way
+  const execArgv: string[] = [];
+  for (let i = 0; i < process.execArgv.length; i++) {
+    const a = process.execArgv[i];
+    if ((a === "--require" || a === "--import") && /tsx/.test(process.execArgv[i + 1] ?? "")) i++;
+    else if (!/tsx/.test(a)) execArgv.push(a);
+  }
+  const boot = `import(${JSON.stringify(loader)}).then((m) => { m.register(); return import(${JSON.stringify(entry)}); })`;
+  return new Worker(boot, { eval: true, workerData: data, execArgv });
+}
+
+const worker = startWorker({ argv: process.argv.slice(2), flag: abortFlagBuffer() });
+let exitCode: number | null = null;
+let failure: Error | null = null;
+let signals = 0;
+
+function onSignal(name: NodeJS.Signals): void {
+  signals++;
+  if (signals > 1) {
+    say(`plumbline: ${name} again: stopping at once (temporary files may remain)\n`);
+    process.exit(name === "SIGINT" ? 130 : 143);
+  }
+  say(`\nplumbline: ${name === "SIGINT" ? "interrupted" : "terminated"}; finishing up and writing the best result so far (send it again to quit at once)\n`);
+  requestAbort();
+  worker.postMessage({ abort: name });
+}
+process.on("SIGINT", onSignal);
+process.on("SIGTERM", onSignal);
+
+worker.on("message", (m: { exitCode?: number }) => {
+  if (typeof m?.exitCode === "number") exitCode = m.exitCode;
 });
-
-const code = await runCli(process.argv.slice(2), { stdout: process.stdout, stderr: process.stderr }, controller.signal);
-process.exitCode = code;
+worker.on("error", (e) => {
+  failure = e;
+});
+worker.on("exit", () => {
+  if (exitCode !== null) {
+    process.exitCode = exitCode;
+    return;
+  }
+  const err = failure as (Error & { code?: string }) | null;
+  if (err?.code === "ERR_WORKER_OUT_OF_MEMORY") {
+    say("plumbline: memory limit reached: the JavaScript heap is full (raise it with NODE_OPTIONS=--max-old-space-size=MB, or set a --memory-limit)\n");
+    process.exitCode = 3;
+    return;
+  }
+  say(`plumbline: internal error: ${err?.message ?? "the command ended without a result"}\n`);
+  if (process.env.PLUMBLINE_DEBUG && err?.stack) say(`${err.stack}\n`);
+  process.exitCode = 4;
+});

@@ -1,6 +1,7 @@
 // Parsing of the numeric options several commands share (--time-limit, --memory-limit, state
 // caps): one place for the rules and the usage-error wording.
 import { PlumblineError } from "../util/errors.js";
+import { tightenLimits } from "../util/limits.js";
 
 /** A positive number (or whole number with `integer`); undefined when the option is absent. */
 export function positiveNumber(flag: string, text: string | undefined, integer = false): number | undefined {
@@ -17,8 +18,14 @@ export function positiveOption(flag: string, text: string | undefined, fallback:
   return positiveNumber(flag, text, true) ?? fallback;
 }
 
-/** Parses --time-limit (seconds, > 0) into an absolute deadline in epoch milliseconds. */
+/**
+ * Parses --time-limit (seconds, > 0) into an absolute deadline in epoch milliseconds, and makes it
+ * the deadline of the whole command: every long loop polls it (src/util/limits.ts), so reading and
+ * grounding spend the limit too.
+ */
 export function deadlineFrom(timeLimit: string | undefined): number | undefined {
   const s = positiveNumber("--time-limit", timeLimit);
-  return s === undefined ? undefined : Date.now() + s * 1000;
+  const deadline = s === undefined ? undefined : Date.now() + s * 1000;
+  tightenLimits({ deadline });
+  return deadline;
 }

@@ -2,6 +2,7 @@
 // mapping errors to the exit codes of the CLI contract (no stack traces for users).
 import { Command, CommanderError } from "commander";
 import { isPlumblineError } from "../util/errors.js";
+import { isLimitReached, withLimits } from "../util/limits.js";
 import { CliContext, type CliIo } from "./context.js";
 import { commands } from "./commands/index.js";
 import { VERSION } from "../util/version.js";
@@ -36,13 +37,20 @@ export async function runCli(argv: string[], io: CliIo = { stdout: process.stdou
   const ctx = new CliContext(io, signal ?? new AbortController().signal);
   const program = buildProgram(ctx);
   try {
-    await program.parseAsync(argv, { from: "user" });
+    // one set of limits for the whole command: the abort signal now, a deadline when the command parses one
+    await withLimits({ signal: ctx.signal }, () => program.parseAsync(argv, { from: "user" }));
     return ctx.exitCode;
   } catch (e) {
     if (e instanceof CommanderError) {
       // help and version exit with 0; usage errors with 2
       if (e.code === "commander.helpDisplayed" || e.code === "commander.version" || e.code === "commander.help") return 0;
       return 2;
+    }
+    if (isLimitReached(e)) {
+      // a limit stopped a phase before the command had any result to report
+      if (ctx.json) ctx.io.stdout.write(JSON.stringify({ status: "unknown", stopReason: e.reason, error: e.message, code: e.code }, null, 2) + "\n");
+      ctx.io.stderr.write(`plumbline: stopped: ${e.message}; no result yet\n`);
+      return e.exitCode;
     }
     if (isPlumblineError(e)) {
       if (ctx.json) ctx.io.stdout.write(JSON.stringify({ error: e.message, code: e.code, pos: e.pos ?? null }, null, 2) + "\n");

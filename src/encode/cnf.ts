@@ -1,5 +1,6 @@
 // A compact, growable CNF store: all literals in one Int32Array, clause ends in another,
 // plus labelled variable ranges so any variable can be traced back to what it means.
+import { poll } from "../util/limits.js";
 
 /** The plain CNF shape the SAT module and the proof checker read. */
 export interface PlainCnf {
@@ -90,6 +91,7 @@ export class CnfBuilder {
 
   /** Appends the first `n` literals of `lits` as one clause (literals must name allocated variables). */
   addClause(lits: ArrayLike<number>, n: number = lits.length): void {
+    poll("encoding");
     const fixed = this.fixed;
     if (fixed !== null) {
       const kept = this.kept;

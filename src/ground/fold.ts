@@ -4,6 +4,7 @@
 import { compareKeys, sortedUnique, type Draft, type DraftAction } from "./draft.js";
 import { finishEffects } from "./instantiate.js";
 import type { Action, CondEffect, Task } from "./task.js";
+import { poll } from "../util/limits.js";
 
 /** Removes constant facts from conditions and effects until nothing changes. */
 export function foldConstants(d: Draft): void {
@@ -11,9 +12,11 @@ export function foldConstants(d: Draft): void {
   const init = new Uint8Array(n);
   for (const f of d.init) init[f] = 1;
   for (;;) {
+    poll("grounding");
     const added = new Uint8Array(n);
     const deleted = new Uint8Array(n);
     for (const a of d.actions) {
+      poll("grounding");
       for (const f of a.add) added[f] = 1;
       for (const f of a.del) deleted[f] = 1;
       for (const ce of a.cond) {
@@ -26,6 +29,7 @@ export function foldConstants(d: Draft): void {
     let removed = false;
     const kept: DraftAction[] = [];
     for (const a of d.actions) {
+      poll("grounding");
       if (a.pre.some(isFalse) || a.preNeg.some(isTrue)) {
         removed = true;
         continue;
@@ -53,6 +57,7 @@ export function foldConstants(d: Draft): void {
       for (let f = 0; f < n; f++) if ((isTrue(f) || isFalse(f)) && !needed.has(f)) constant[f] = 1;
       const drop = (xs: number[]) => xs.filter((f) => !constant[f]);
       for (const a of d.actions) {
+        poll("grounding");
         a.pre = drop(a.pre);
         a.preNeg = drop(a.preNeg);
         a.add = drop(a.add);
@@ -87,6 +92,7 @@ export function renumber(d: Draft, keep: Uint8Array): void {
   d.goal = m(d.goal);
   d.goalNeg = m(d.goalNeg);
   for (const a of d.actions) {
+    poll("grounding");
     a.pre = m(a.pre);
     a.preNeg = m(a.preNeg);
     a.add = m(a.add);

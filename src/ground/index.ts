@@ -2,5 +2,5 @@
 // stage works on (task.ts is the contract), with optional goal-relevance pruning.
 export * from "./task.js";
 export { ground, groundFiles, costModelOf, type GroundOptions } from "./ground.js";
-export { pruneIrrelevant } from "./relevance.js";
+export { pruneIrrelevant, pruneIrrelevantMapped } from "./relevance.js";
 export { GOAL_FACT, GOAL_ACTION_SCHEMA, UNREACHABLE_GOAL_FACT } from "./goal.js";

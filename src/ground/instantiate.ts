@@ -8,6 +8,7 @@ import { bodyOf, type Reached } from "./reach.js";
 import { compareKeys, sortedUnique, type DraftAction } from "./draft.js";
 import type { CondEffect, CostModel } from "./task.js";
 import type { World } from "./world.js";
+import { poll } from "../util/limits.js";
 
 /** Looks up reachable fact numbers for ground atoms. */
 export class FactLookup {
@@ -112,6 +113,7 @@ export function instantiate(w: World, actions: readonly LAction[], r: Reached, c
     return ids;
   };
   for (const inst of r.instances) {
+    poll("grounding");
     const a = actions[inst.action];
     const d = a.disjuncts[inst.disjunct];
     const b = inst.binding;

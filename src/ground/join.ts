@@ -2,6 +2,7 @@
 // relations preferred) and runs it over indexed tuple sets, calling back per binding.
 import { isVar, termVar, type LEq, type LLit, type LTerm } from "./lifted.js";
 import type { TupleSet } from "./store.js";
+import { poll } from "../util/limits.js";
 
 /** A conjunctive body: positive atoms to join, negative static atoms and (in)equalities to check. */
 export interface Body {
@@ -207,6 +208,7 @@ export class Joiner {
     const after = plan.checks[i + 1];
     if (op.k === 1) {
       for (const x of this.domList[op.v]) {
+        poll("grounding");
         this.binding[op.v] = x;
         if (this.checksPass(after)) this.step(plan, i + 1, emit);
       }
@@ -229,6 +231,7 @@ export class Joiner {
     const count = bucket ? bucket.length : set.size;
     const tuples = set.tuples;
     outer: for (let j = 0; j < count; j++) {
+      poll("grounding");
       const tup = tuples[bucket ? bucket[j] : j];
       for (const [p, v] of op.free) {
         const x = tup[p];

@@ -4,6 +4,7 @@ import { PlumblineError } from "../util/errors.js";
 import { cartesian, type ActionDecl, type Effect, type Formula, type Term, type TypedName } from "../pddl/index.js";
 import { isVar, varTerm, type Conj, type LAction, type LAtom, type LEffItem, type LLit, type LTerm } from "./lifted.js";
 import { factKey, type World } from "./world.js";
+import { poll } from "../util/limits.js";
 
 /** Most disjuncts one formula may expand to, and most object tuples one `forall` may cover. */
 export const MAX_DISJUNCTS = 20_000;
@@ -109,6 +110,7 @@ export class Normalizer {
         const parts: N[] = [];
         let count = 0;
         for (const tuple of this.tuples(f.vars, f.pos)) {
+          poll("grounding");
           if (++count > MAX_EXPANSION) throw this.limit("a universal quantifier", f.pos);
           const inner = new Map(env);
           f.vars.forEach((v, i) => inner.set(v.name, tuple[i]));
@@ -279,6 +281,7 @@ export function normalizeAction(w: World, a: ActionDecl, schema: number): LActio
   for (const s of scopes) {
     if (s.adds.length === 0 && s.dels.length === 0) continue;
     for (const cond of nz.dnf(mk("and", s.cond), a.pos)) {
+      poll("grounding");
       if (s.vars.length === 0 && cond.vars.length === 0 && cond.lits.length === 0 && cond.eqs.length === 0) {
         adds.push(...s.adds);
         dels.push(...s.dels);

@@ -6,6 +6,7 @@ import { compilePlan, Joiner, type Body, type Plan } from "./join.js";
 import type { LAction, LAtom, Conj, LEffItem } from "./lifted.js";
 import { TupleSet } from "./store.js";
 import type { World } from "./world.js";
+import { poll } from "../util/limits.js";
 
 /** One reachable binding of an action's precondition disjunct. */
 export interface Instance {
@@ -112,6 +113,7 @@ export function reach(w: World, actions: readonly LAction[]): Reached {
   const seen = actions.map(() => new Set<string>());
   let current: Rule = rules[0];
   const emit = (): void => {
+    poll("grounding");
     const r = current;
     const j = joiners[r.action];
     const b = j.binding;
@@ -141,6 +143,7 @@ export function reach(w: World, actions: readonly LAction[]): Reached {
     joiners[current.action].run(sp.plan, emit);
   }
   for (let qi = 0; qi < queue.length; qi++) {
+    poll("grounding");
     const f = queue[qi];
     const pred = factPred[f];
     const args = factArgs[f];

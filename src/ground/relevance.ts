@@ -3,8 +3,17 @@
 // conditional effects: touching means adding or deleting, plain or conditional.
 import type { Task } from "./task.js";
 import { sortedUnique } from "./draft.js";
+import { poll } from "../util/limits.js";
 
 export function pruneIrrelevant(task: Task): Task {
+  return pruneIrrelevantMapped(task).task;
+}
+
+/**
+ * The pruned task with, for each kept fact and action, its index in `task`. Names cannot serve
+ * as the map: the branches of a disjunctive precondition are separate actions with one name.
+ */
+export function pruneIrrelevantMapped(task: Task): { task: Task; factMap: Int32Array; actionMap: Int32Array } {
   const n = task.facts.length;
   const touching: number[][] = Array.from({ length: n }, () => []);
   task.actions.forEach((a, i) => {
@@ -24,6 +33,7 @@ export function pruneIrrelevant(task: Task): Task {
   for (const f of task.goal) mark(f);
   for (const f of task.goalNeg) mark(f);
   for (let qi = 0; qi < queue.length; qi++) {
+    poll("grounding");
     for (const ai of touching[queue[qi]]) {
       if (relAction[ai]) continue;
       relAction[ai] = 1;
@@ -45,8 +55,10 @@ export function pruneIrrelevant(task: Task): Task {
     }
   }
   const m = (xs: readonly number[]) => sortedUnique(xs.filter((f) => map[f] >= 0).map((f) => map[f]));
-  const actions = task.actions
-    .filter((_, i) => relAction[i])
+  const kept: number[] = [];
+  for (let i = 0; i < task.actions.length; i++) if (relAction[i]) kept.push(i);
+  const actions = kept
+    .map((i) => task.actions[i])
     .map((a) => ({
       ...a,
       pre: m(a.pre),
@@ -57,5 +69,7 @@ export function pruneIrrelevant(task: Task): Task {
         .map((ce) => ({ cond: m(ce.cond), condNeg: m(ce.condNeg), add: m(ce.add), del: m(ce.del) }))
         .filter((ce) => ce.add.length + ce.del.length > 0),
     }));
-  return { ...task, facts, init: m(task.init), goal: m(task.goal), goalNeg: m(task.goalNeg), actions };
+  const factMap = new Int32Array(facts.length);
+  for (let f = 0; f < n; f++) if (map[f] >= 0) factMap[map[f]] = f;
+  return { task: { ...task, facts, init: m(task.init), goal: m(task.goal), goalNeg: m(task.goalNeg), actions }, factMap, actionMap: Int32Array.from(kept) };
 }

@@ -7,6 +7,7 @@ import { condense, type Condensation } from "./condensation.js";
 import { splitByContext } from "./context-split.js";
 import { exploreProjection, type ProjectionContext, type ProjectionExplored, type ProjectionLimits } from "./projection.js";
 import { reachStats } from "./reach.js";
+import { poll } from "../util/limits.js";
 
 /**
  * Why the total bounds the length needed (our own proof for this code's semantics; the
@@ -158,6 +159,7 @@ export function compositionalBound(ctx: ProjectionContext, graph: DependencyGrap
   let positiveSum: Big = 0n;
   let otherSum: Big = 0n;
   for (let s = graph.sccs.length - 1; s >= 0; s--) {
+    poll("computing the horizon");
     const vars = graph.sccs[s];
     const facts = vars.reduce((n, v) => n + variables.variables[v].facts.length, 0);
     let X: Big = 0n;
@@ -221,6 +223,7 @@ export function compositionalBound(ctx: ProjectionContext, graph: DependencyGrap
     }
     let best: Big = null;
     for (const [a, b] of options) {
+      poll("computing the horizon");
       const k = add(mul(M, a), mul(b, X));
       if (best === null || (k !== null && k < best)) {
         best = k;

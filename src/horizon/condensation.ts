@@ -1,5 +1,6 @@
 // Condensation of a small explicit graph (CSR): its strongly connected components, the largest
 // one, and the heaviest path through the component DAG — what the affine block bounds need.
+import { poll } from "../util/limits.js";
 
 export interface Condensation {
   /** Number of nodes. */
@@ -44,6 +45,7 @@ export function condense(n: number, start: Int32Array, target: Int32Array): Cond
     onStack[root] = 1;
     edgePos[root] = start[root];
     while (cp > 0) {
+      poll("computing the horizon");
       const v = call[cp - 1];
       if (edgePos[v] < start[v + 1]) {
         const u = target[edgePos[v]++];
@@ -75,6 +77,7 @@ export function condense(n: number, start: Int32Array, target: Int32Array): Cond
       } while (stack[sp] !== v);
       let best = 0;
       for (let i = first; i < first + size; i++) {
+        poll("computing the horizon");
         const w = stack[i];
         for (let e = start[w]; e < start[w + 1]; e++) {
           const d = comp[target[e]];

@@ -5,6 +5,7 @@ import { PackedStateSet } from "../analyse/index.js";
 import { condense } from "./condensation.js";
 import { exploreProjection, toCsr, type ProjectionContext, type ProjectionExplored, type ProjectionLimits } from "./projection.js";
 import { reachStats } from "./reach.js";
+import { poll } from "../util/limits.js";
 
 /**
  * Setting: S is a root of the zero-cost dependency graph, so its zero-cost actions read only S
@@ -130,6 +131,7 @@ export function splitByContext(
     for (const l of ls) out[off + (l >>> 5)] |= 1 << (l & 31);
   };
   for (let g = 0; g < cp.states; g++) {
+    poll("computing the horizon");
     const gamma = cp.stateSet!.view(g);
     const gTrue = trueOf(cp.stateSet!, g, cFacts);
     // actions and conditional effects enabled under γ, as word masks over S
@@ -152,6 +154,7 @@ export function splitByContext(
     if (usePairs) sFacts.forEach((f, l) => gTrue.every((h) => pairs.together(f, h)) || (forbidden[l >>> 5] |= 1 << (l & 31)));
     const states = new PackedStateSet(W, 1024);
     for (let i = 0; i < nS; i++) {
+      poll("computing the horizon");
       const y = own.stateSet.view(i);
       let ok = true;
       for (let w = 0; w < W && ok; w++) ok = (y[w] & forbidden[w]) === 0;
@@ -161,9 +164,11 @@ export function splitByContext(
     const from: number[] = [];
     const to: number[] = [];
     for (let i = 0; i < states.size; i++) {
+      poll("computing the horizon");
       states.copyTo(i, cur);
       work += E;
       for (let e = 0; e < E; e++) {
+        poll("computing the horizon");
         const o = e * W;
         let ok = true;
         for (let w = 0; w < W && ok; w++) ok = (cur[w] & preM[o + w]) === preM[o + w] && (cur[w] & negM[o + w]) === 0;

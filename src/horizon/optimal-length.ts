@@ -2,6 +2,7 @@
 // explicit state space, under a cap on stored states — the exact-explicit horizon method.
 import type { Task } from "../ground/task.js";
 import { ActionIndex, PackedStateSet, applyAction, isGoalAt, packBits, wordsFor } from "../analyse/index.js";
+import { poll } from "../util/limits.js";
 
 export type OptimalLength =
   /** A cheapest plan costs `cost`; among cheapest plans the fewest actions is `length`. */
@@ -63,6 +64,7 @@ export function optimalLength(task: Task, maxStates: number): OptimalLength {
   let settled = 0;
   let exceeded = false;
   while (heap.size > 0) {
+    poll("computing the horizon");
     const v = heap.pop();
     if (done[v]) continue;
     done[v] = 1;

@@ -3,6 +3,7 @@
 import type { DependencyGraph } from "../analyse/index.js";
 import { IdHeap, type PackedStateSet } from "../analyse/index.js";
 import { exploreProjection, type ProjectionContext, type ProjectionLimits } from "./projection.js";
+import { poll } from "../util/limits.js";
 
 /**
  * Why it is a lower bound. Every real plan π from the initial state projects onto a path of
@@ -41,6 +42,7 @@ export function patternExcessBounds(
     const s = graph.sccOf[v];
     const candidates = [varsOf(ancestors(s)), varsOf([s, ...graph.parents[s]]), varsOf([s])];
     for (const vars of candidates) {
+      poll("computing the horizon");
       const key = vars.join(",");
       if (tried.has(key)) break;
       tried.add(key);
@@ -80,6 +82,7 @@ function cheapestToGoal(
   dist[0] = 0;
   push(0);
   while (heap.size > 0) {
+    poll("computing the horizon");
     const v = node[heap.pop()];
     if (done[v]) continue;
     done[v] = 1;

@@ -3,6 +3,7 @@
 import type { Task } from "../ground/task.js";
 import type { PairReachability, Variables } from "../analyse/index.js";
 import { PackedStateSet } from "../analyse/index.js";
+import { poll } from "../util/limits.js";
 
 /**
  * Projection semantics (sound over-approximation). A projected state is the set of true facts
@@ -185,9 +186,11 @@ function explore(ctx: ProjectionContext, vars: readonly number[], facts: number[
     return true;
   };
   for (let i = 0; i < states.size; i++) {
+    poll("computing the horizon");
     states.copyTo(i, y);
     const yTrue = usePairs ? trueGlobal(y) : [];
     for (const c of compiled) {
+      poll("computing the horizon");
       if (!all(y, c.pre) || !none(y, c.preNeg)) continue;
       if (usePairs && !c.outsidePre.every((f) => compatible(f, yTrue))) continue;
       const certain: CompiledCond[] = [];

@@ -1,6 +1,7 @@
 // Reachability statistics of a small explicit graph (CSR): the largest set of states one
 // state reaches, and the largest BFS distance — what the zero-cost bounds need.
 import { withComponents } from "../analyse/index.js";
+import { poll } from "../util/limits.js";
 
 export interface ReachStats {
   /** Largest number of states reachable from one state (itself included). */
@@ -30,6 +31,7 @@ export function reachStats(n: number, start: Int32Array, target: Int32Array, max
     queue[tail++] = s;
     dist[s] = 0;
     while (head < tail) {
+      poll("computing the horizon");
       const v = queue[head++];
       if (dist[v] > largestDistance) largestDistance = dist[v];
       work += 1 + start[v + 1] - start[v];
@@ -68,6 +70,7 @@ export function largestReachableSet(n: number, start: Int32Array, target: Int32A
   const reach = new Uint32Array(C * W);
   let best = 0;
   for (let c = C - 1; c >= 0; c--) {
+    poll("computing the horizon");
     const base = c * W;
     reach[base + (c >>> 5)] |= 1 << (c & 31);
     for (const d of g.children[c]) for (let w = 0; w < W; w++) reach[base + w] |= reach[d * W + w];

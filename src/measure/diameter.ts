@@ -4,6 +4,7 @@
 import type { StateGraph } from "../analyse/index.js";
 import type { Measure } from "./types.js";
 import { objectSwaps, permuteState, compose, type Symmetry } from "./symmetry.js";
+import { poll } from "../util/limits.js";
 
 /** Breadth-first eccentricity of `src` (largest distance to a state reachable from it). */
 export function eccentricity(g: StateGraph, src: number, dist: Int32Array, queue: Int32Array): number {
@@ -13,6 +14,7 @@ export function eccentricity(g: StateGraph, src: number, dist: Int32Array, queue
   dist[src] = 0;
   let ecc = 0;
   while (head < tail) {
+    poll("measuring the state graph");
     const v = queue[head++];
     const d = dist[v];
     if (d > ecc) ecc = d;
@@ -83,6 +85,7 @@ export function symmetryOrbits(g: StateGraph, maxSwapPairs = 5000, maxStall = 2)
     if (stall >= maxStall) break;
     let merged = 0;
     for (let v = 0; v < n; v++) {
+      poll("measuring the state graph");
       g.states.copyTo(v, cur);
       const u = g.states.indexOf(permuteState(s.perm, cur, img));
       if (u < 0) throw new Error("symmetry maps a reachable state outside the reachable set");
@@ -123,6 +126,7 @@ export function diameter(g: StateGraph, opts: DiameterOptions = {}): Measure & {
   // representatives are the smallest state of each orbit, so the initial state (0) comes first
   const reps = orbits.representatives;
   for (const r of reps) {
+    poll("measuring the state graph");
     if (runs > 0 && work + n + E > maxWork) break;
     const e = eccentricity(g, r, dist, queue);
     runs++;

@@ -2,6 +2,7 @@
 // the fewest actions (ties on cost broken by length, lexicographically).
 import type { StateGraph } from "../analyse/index.js";
 import { IdHeap, isGoalAt } from "../analyse/index.js";
+import { poll } from "../util/limits.js";
 
 export interface OptimalResult {
   /** null when no reachable state satisfies the goal. */
@@ -39,6 +40,7 @@ export function optimalPlan(g: StateGraph): OptimalResult {
   push(0);
   // stale entries are skipped through `done`; an improved state is pushed again
   while (heap.size > 0) {
+    poll("measuring the state graph");
     const v = eState[heap.pop()];
     if (done[v]) continue;
     done[v] = 1;

@@ -4,6 +4,7 @@
 import type { StateGraph } from "../analyse/index.js";
 import { withComponents } from "../analyse/index.js";
 import { boundedMeasure, exactMeasure, type Measure } from "./types.js";
+import { poll } from "../util/limits.js";
 
 /** Successor lists without duplicates and self-loops. */
 export function simpleSuccessors(g: StateGraph): number[][] {
@@ -53,6 +54,7 @@ export function recurrenceDiameter(succ: number[][], upper: number, maxNodes: nu
     stackE[0] = 0;
     onPath[x] = 1;
     while (depth >= 0) {
+      poll("measuring the state graph");
       const v = stackV[depth];
       const list = succ[v];
       if (stackE[depth] < list.length) {

@@ -2,6 +2,7 @@
 // runs that visit no state twice (cutting a loop gives a sub-sequence, so these suffice).
 import type { StateGraph } from "../analyse/index.js";
 import { boundedMeasure, exactMeasure, type Measure } from "./types.js";
+import { poll } from "../util/limits.js";
 
 const INF = 0x3fffffff;
 
@@ -55,6 +56,7 @@ export function sublistAndSubset(g: StateGraph, upper: number, opts: SublistOpti
     pathE[0] = g.edgeStart[x];
     onPath[x] = 1;
     while (depth >= 0) {
+      poll("measuring the state graph");
       const v = pathV[depth];
       if (pathE[depth] < g.edgeStart[v + 1]) {
         const e = pathE[depth]++;
@@ -119,6 +121,7 @@ function allDistances(g: StateGraph): Int32Array {
     queue[tail++] = s;
     d[row + s] = 0;
     while (head < tail) {
+      poll("measuring the state graph");
       const v = queue[head++];
       for (let e = g.edgeStart[v]; e < g.edgeStart[v + 1]; e++) {
         const u = g.edgeTarget[e];
@@ -166,6 +169,7 @@ function subsetMinimum(
   for (let depth = 1; depth < ub; depth++) {
     const next: number[] = [];
     for (const key of frontier) {
+      poll("measuring the state graph");
       const s = Math.floor(key / R);
       const code = key - s * R;
       for (let i = 0; i < distinct.length; i++) {

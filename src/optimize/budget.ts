@@ -1,7 +1,15 @@
 // The optimizer's limits in one place: wall-clock deadline, resident-memory ceiling (polled)
 // and the abort signal (SIGINT), plus elapsed time and peak memory for the report.
 
+import { isAborted } from "../util/limits.js";
+
 export type StopReason = "time" | "memory" | "interrupted";
+
+/** The absolute deadline of `timeLimit` (seconds from now) and `deadline`, whichever comes first. */
+export function deadlineOf(opts: { timeLimit?: number; deadline?: number }): number {
+  const fromLimit = opts.timeLimit !== undefined ? Date.now() + opts.timeLimit * 1000 : Infinity;
+  return Math.min(fromLimit, opts.deadline ?? Infinity);
+}
 
 export class Budget {
   readonly t0 = performance.now();
@@ -11,8 +19,7 @@ export class Budget {
   peakRss = 0;
 
   constructor(opts: { timeLimit?: number; deadline?: number; memoryLimitMb?: number; signal?: AbortSignal }) {
-    const fromLimit = opts.timeLimit !== undefined ? Date.now() + opts.timeLimit * 1000 : Infinity;
-    this.deadline = Math.min(fromLimit, opts.deadline ?? Infinity);
+    this.deadline = deadlineOf(opts);
     this.memoryLimitBytes = opts.memoryLimitMb !== undefined ? opts.memoryLimitMb * 1048576 : Infinity;
     this.signal = opts.signal;
     this.rss();
@@ -32,7 +39,7 @@ export class Budget {
 
   /** Why to stop now, or null to go on. */
   stop(): StopReason | null {
-    if (this.signal?.aborted) return "interrupted";
+    if (isAborted(this.signal)) return "interrupted";
     if (Date.now() >= this.deadline) return "time";
     if (this.rss() > this.memoryLimitBytes) return "memory";
     return null;

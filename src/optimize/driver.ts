@@ -9,13 +9,15 @@ import { computeHorizon, type HorizonReport } from "../horizon/index.js";
 import type { Model } from "../pddl/index.js";
 import { checkLandmarkCertificate, gbfs, landmarkCutAtInit, type LandmarkRecord } from "../search/index.js";
 import { PlumblineError } from "../util/errors.js";
-import { Budget, type StopReason } from "./budget.js";
+import { isLimitReached, withLimits } from "../util/limits.js";
+import { Budget, deadlineOf, type StopReason } from "./budget.js";
 import { estimateFormula } from "./estimate.js";
 import { resolveEncoding, specFor, type EncodingChoice } from "./encoding-choice.js";
 import { boundSettings, buildFormula, formulaId, type Formula, type FormulaSpec } from "./formula.js";
 import { incumbentIds } from "./incumbent.js";
 import { checkPlan, dropRedundant, InternalError, toGroundIds, type CheckedPlan } from "./plan-check.js";
 import { Progress } from "./progress.js";
+import { stoppedOutcome } from "./stopped.js";
 import { builtinSession, externalSession, makeWorkDir, type SatSession } from "./sat-session.js";
 import type { OptimizeOptions, OptimizeOutcome, ProofHow, TimelineEvent } from "./types.js";
 
@@ -155,9 +157,25 @@ function horizonValue(r: HorizonReport): number | string {
  * certificate can carry (DRAT, landmark record, or relaxed unreachability).
  */
 export async function optimize(model: Model, task: Task, groundOptions: GroundOptions, opts: OptimizeOptions = {}): Promise<OptimizeOutcome> {
-  const run = new Run(model, task, groundOptions, opts);
+  // every phase (analysis, heuristics, search, horizon, encoding) polls these limits
+  return withLimits({ deadline: deadlineOf(opts), memoryLimitMb: opts.memoryLimitMb, signal: opts.signal }, () => optimizeWithin(model, task, groundOptions, opts));
+}
+
+async function optimizeWithin(model: Model, task: Task, groundOptions: GroundOptions, opts: OptimizeOptions): Promise<OptimizeOutcome> {
+  const t0 = performance.now();
+  let run: Run;
+  try {
+    run = new Run(model, task, groundOptions, opts); // analyses the task (can be long)
+  } catch (e) {
+    if (isLimitReached(e)) return stoppedOutcome(e.reason, (performance.now() - t0) / 1000, "analysing the task");
+    throw e;
+  }
   try {
     return await drive(run);
+  } catch (e) {
+    // a limit stopped a synchronous phase: report the best plan so far
+    if (isLimitReached(e)) return finish(run, run.best ? "feasible" : "unknown", null, e.reason);
+    throw e;
   } finally {
     run.close();
     // the work directory holds only temporary files; a proof that is kept was handed over
@@ -252,9 +270,9 @@ async function findFirstPlan(run: Run, exhausted: boolean): Promise<OptimizeOutc
   }
   // no formula fits: only exhaustive search could have settled it
   if (exhausted) {
-    run.notes.push("GBFS exhausted the reachable states without reaching the goal (unsolvable), but that search leaves no certificate");
-    run.lower = Infinity;
-    return finish(run, "unsolvable", null, null, { provedBy: "exhaustive search (not certifiable)", horizon: rep });
+    // sound, but nothing audit could re-check: `unsolvable` is claimed only with a certificate
+    run.notes.push("GBFS exhausted the reachable states without reaching the goal, so no plan exists; that search leaves no certificate, so the status stays unknown");
+    return finish(run, "unknown", null, "no-proof", { horizon: rep });
   }
   return finish(run, "unknown", null, "horizon-too-large", { horizon: rep });
 }

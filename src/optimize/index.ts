@@ -1,6 +1,9 @@
 // The optimize stage's public API: find a cost-optimal plan and prove it (SAT at a
 // completeness threshold, or a matching lower bound), and the formula a certificate names.
 import { groundFiles, type GroundOptions } from "../ground/index.js";
+import { isLimitReached, withLimits } from "../util/limits.js";
+import { stoppedOutcome } from "./stopped.js";
+import { deadlineOf } from "./budget.js";
 import { optimize } from "./driver.js";
 import type { OptimizeOptions, OptimizeOutcome } from "./types.js";
 
@@ -32,6 +35,17 @@ export const OPTIMIZE_GROUNDING: Required<GroundOptions> = { relevance: true };
 
 /** Parses, grounds (goal-relevance pruning on) and optimizes two PDDL files. */
 export async function optimizeFiles(domainPath: string, problemPath: string, opts: OptimizeOptions = {}): Promise<OptimizeOutcome> {
-  const { model, task } = groundFiles(domainPath, problemPath, OPTIMIZE_GROUNDING);
-  return optimize(model, task, OPTIMIZE_GROUNDING, opts);
+  // the time limit counts from here: parsing and grounding spend it too
+  const deadline = deadlineOf(opts);
+  const t0 = performance.now();
+  return withLimits({ deadline, memoryLimitMb: opts.memoryLimitMb, signal: opts.signal }, async () => {
+    let grounded;
+    try {
+      grounded = groundFiles(domainPath, problemPath, OPTIMIZE_GROUNDING);
+    } catch (e) {
+      if (isLimitReached(e)) return stoppedOutcome(e.reason, (performance.now() - t0) / 1000, "reading and grounding");
+      throw e;
+    }
+    return optimize(grounded.model, grounded.task, OPTIMIZE_GROUNDING, { ...opts, timeLimit: undefined, deadline });
+  });
 }

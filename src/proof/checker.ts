@@ -8,6 +8,7 @@ import { HintLog } from "./hint-log.js";
 import { writeLrat, type LratSink } from "./lrat-writer.js";
 import type { ProofSteps } from "./proof-reader.js";
 import { NO_CONFLICT, Propagator } from "./propagator.js";
+import { isAborted, limitReason } from "../util/limits.js";
 
 // copied once (see propagator.ts)
 const ACTIVE = FLAG_ACTIVE;
@@ -132,7 +133,7 @@ export function checkSteps(cnf: CheckerCnf, proof: ProofSteps, opts: DratOptions
   let tick = 0;
   const poll = (): void => {
     if ((++tick & 1023) !== 0) return;
-    if (opts.signal?.aborted || (opts.deadline !== undefined && Date.now() >= opts.deadline)) throw new Stopped();
+    if (isAborted(opts.signal) || (opts.deadline !== undefined && Date.now() >= opts.deadline) || limitReason() !== null) throw new Stopped();
   };
 
   try {

@@ -6,7 +6,7 @@ import { PlumblineError } from "../util/errors.js";
 import { readBytes, tempNameFor } from "../util/files.js";
 import { checkSteps, type DratOptions, type DratResult } from "./checker.js";
 import { readCnfForChecker, type CheckerCnf } from "./cnf-reader.js";
-import { maybeGunzip, readProof } from "./proof-reader.js";
+import { BROKEN_GZIP, gunzipOrNull, readProof } from "./proof-reader.js";
 
 export type { DratOptions, DratResult, DratStats, FailedLemma, CheckMode } from "./checker.js";
 export type { LratSink } from "./lrat-writer.js";
@@ -20,7 +20,9 @@ export { isBinaryProof, maybeGunzip } from "./proof-reader.js";
  * refutation are RUP or RAT, and unit propagation over formula plus lemmas reaches a conflict.
  */
 export function checkDrat(cnf: CheckerCnf, proof: Uint8Array, opts?: DratOptions): DratResult {
-  return checkSteps(cnf, readProof(maybeGunzip(proof)), opts);
+  const bytes = gunzipOrNull(proof);
+  if (bytes === null) return checkSteps(cnf, { ...readProof(new Uint8Array(0)), error: BROKEN_GZIP }, opts);
+  return checkSteps(cnf, readProof(bytes), opts);
 }
 
 export interface DratFileOptions extends Omit<DratOptions, "lrat"> {

@@ -2,7 +2,7 @@
 // hint must name a clause that is unit (or falsified) under the negated lemma plus the units
 // so far, so one pass over the hints decides each lemma. Shares only the DIMACS reader.
 import type { CheckerCnf } from "./cnf-reader.js";
-import { maybeGunzip } from "./proof-reader.js";
+import { BROKEN_GZIP, gunzipOrNull } from "./proof-reader.js";
 
 export interface LratResult {
   valid: boolean;
@@ -23,7 +23,8 @@ const MIN_VAR_LIMIT = 1 << 24;
 export function checkLrat(cnf: CheckerCnf, proof: Uint8Array | string): LratResult {
   const t0 = performance.now();
   const stats = { additions: 0, ratAdditions: 0, deletions: 0, hints: 0, seconds: 0 };
-  const bytes = typeof proof === "string" ? Buffer.from(proof, "latin1") : maybeGunzip(proof);
+  const bytes = typeof proof === "string" ? Buffer.from(proof, "latin1") : gunzipOrNull(proof);
+  if (bytes === null) return { valid: false, reason: BROKEN_GZIP, line: 0, stats };
   // clause number → literals (DIMACS); null once deleted or never added
   const clauses: (Int32Array | null)[] = [null];
   let maxVar = cnf.numVars;

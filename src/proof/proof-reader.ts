@@ -18,10 +18,22 @@ export interface ProofSteps {
   error: string | null;
 }
 
-/** Undoes gzip compression if the bytes carry the gzip magic number. */
+/** Undoes gzip compression if the bytes carry the gzip magic number (throws on a broken stream). */
 export function maybeGunzip(bytes: Uint8Array): Uint8Array {
   if (bytes.length >= 2 && bytes[0] === 0x1f && bytes[1] === 0x8b) return gunzipSync(bytes);
   return bytes;
+}
+
+/** Why a proof that looks gzip-compressed cannot be read. */
+export const BROKEN_GZIP = "the proof is gzip-compressed but the compressed data is truncated or corrupted";
+
+/** `maybeGunzip`, or null when the gzip stream is truncated or corrupted (a rejected proof, not a crash). */
+export function gunzipOrNull(bytes: Uint8Array): Uint8Array | null {
+  try {
+    return maybeGunzip(bytes);
+  } catch {
+    return null;
+  }
 }
 
 class StepBuilder {

@@ -141,5 +141,6 @@ export function auditViewOf(json: Record<string, unknown> | null, source: AuditV
   const okOf = (c: unknown): boolean | null => (typeof c === "boolean" ? c : isObj(c) && c.skipped === true ? null : isObj(c) ? (typeof c.ok === "boolean" ? c.ok : typeof c.valid === "boolean" ? c.valid : typeof c.passed === "boolean" ? c.passed : null) : null);
   if (Array.isArray(raw)) raw.forEach((c, i) => checks.push({ name: isObj(c) && typeof c.name === "string" ? c.name : `check ${i + 1}`, ok: okOf(c), detail: detailOf(c) }));
   else if (isObj(raw)) for (const [name, c] of Object.entries(raw)) checks.push({ name, ok: okOf(c), detail: detailOf(c) });
-  return { status: json.valid ? "valid" : "invalid", source, seconds, checks, note };
+  // an audit a limit stopped has no verdict (older audit.json files have no `finished`: they finished)
+  return { status: json.valid ? "valid" : json.finished === false ? "unknown" : "invalid", source, seconds, checks, note };
 }

@@ -7,6 +7,7 @@ import { RestartPolicy } from "./restart.js";
 import { simplifyAtLevel0 } from "./simplify.js";
 import type { SolveStatus } from "./types.js";
 import { LBD_SHIFT as LBD_SHIFT_, META_LEARNT as META_LEARNT_, TIER_SHIFT as TIER_SHIFT_, USED_SHIFT as USED_SHIFT_, tierOf, type SolverState } from "./state.js";
+import { isAborted } from "../util/limits.js";
 // module-local copies: imported bindings can compile to getter calls in hot loops
 const LBD_SHIFT = LBD_SHIFT_;
 const META_LEARNT = META_LEARNT_;
@@ -151,7 +152,7 @@ function reuseLevel(s: SolverState, assumptionLevels: number): number {
 }
 
 function outOfTime(b: SearchBudget): boolean {
-  return (b.signal !== undefined && b.signal.aborted) || Date.now() >= b.deadline;
+  return isAborted(b.signal) || Date.now() >= b.deadline;
 }
 
 /** Stores the clause in `sc.learnt`, logs it, and asserts its first literal. */

@@ -5,6 +5,7 @@ import { propagate } from "./propagate.js";
 import { SearchControl, becomeUnsat, maybeSimplify, search } from "./search.js";
 import { SolverState } from "./state.js";
 import type { CompactCnf, Cnf, ProofSink, SolveLimits, SolveStatus, SolverOptions, SolverStats } from "./types.js";
+import { isAborted } from "../util/limits.js";
 
 /** Time slice of `solveAsync` between yields to the event loop (milliseconds). */
 const SLICE_MS = 100;
@@ -177,7 +178,7 @@ export class Solver {
     const deadline = limits.deadline ?? Infinity;
     for (;;) {
       const left = limits.conflicts === undefined ? undefined : limits.conflicts - (this.s.conflicts - startConflicts);
-      if ((left !== undefined && left <= 0) || limits.signal?.aborted || Date.now() >= deadline) return this.unknown();
+      if ((left !== undefined && left <= 0) || isAborted(limits.signal) || Date.now() >= deadline) return this.unknown();
       const slice = Math.min(deadline, Date.now() + SLICE_MS);
       const r = this.solveOnce(assumptions, { conflicts: left, deadline: slice, signal: limits.signal }, false, true);
       if (r !== "unknown") return r;
@@ -198,7 +199,7 @@ export class Solver {
     this.failed = [];
     try {
       if (!s.ok) return "unsat";
-      if (checkSignalFirst && limits.signal?.aborted) return "unknown";
+      if (checkSignalFirst && isAborted(limits.signal)) return "unknown";
       const assume = new Int32Array(assumptions.length);
       let maxVar = 0;
       for (let i = 0; i < assumptions.length; i++) {

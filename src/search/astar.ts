@@ -4,7 +4,7 @@ import type { Task } from "../ground/task.js";
 import { applyAction, compileTask, isGoalState, maxCondEffects, type CompiledTask } from "./compiled.js";
 import { KeyHeap } from "./heap.js";
 import type { StateHeuristic } from "./heuristic.js";
-import { LimitChecker } from "./limits.js";
+import { LimitChecker, limitStop } from "./limits.js";
 import { ADMISSIBLE_HEURISTICS, makeHeuristic } from "./make-heuristic.js";
 import { SearchSpace } from "./search-space.js";
 import { SuccessorTree } from "./successor-tree.js";
@@ -60,52 +60,59 @@ export function astarWith(ct: CompiledTask, tree: SuccessorTree, heur: StateHeur
   const early = limits.checkNow();
   if (early) return done("limit", -1, early);
 
-  while (open.size > 0) {
-    const stop = limits.check(expanded, space.table.size);
-    if (stop) return done("limit", -1, stop);
-    const s = open.pop();
-    const gs = space.g.a[s];
-    if (open.topAux > gs) continue; // stale entry: a cheaper path was pushed later
-    if (space.closed.a[s] !== 0) continue;
-    if (open.topKey1 > lowerBound) lowerBound = open.topKey1;
-    const soff = space.table.offset(s);
-    if (isGoalState(ct, space.table.arena, soff)) return done("solved", s);
-    space.closed.a[s] = 1;
-    expanded++;
-    const n = tree.applicable(space.table.arena, soff, appl);
-    for (let i = 0; i < n; i++) {
-      const a = appl[i];
-      applyAction(ct, a, space.table.arena, soff, buf, 0, fired);
-      generated++;
-      const t = space.intern(buf);
-      const ng = gs + cost[a];
-      const g = space.g.a;
-      let ht: number;
-      if (space.table.isNew) {
-        g[t] = ng;
-        space.parent.a[t] = s;
-        space.via.a[t] = a;
-        ht = heur.evaluate(space.table.arena, space.table.offset(t));
-        space.h.a[t] = ht;
-      } else {
-        if (ng >= g[t]) continue;
-        ht = space.h.a[t];
-        g[t] = ng;
-        space.parent.a[t] = s;
-        space.via.a[t] = a;
-        if (space.closed.a[t] !== 0) {
-          space.closed.a[t] = 0;
-          reopened++;
+  try {
+    while (open.size > 0) {
+      const stop = limits.check(expanded, space.table.size);
+      if (stop) return done("limit", -1, stop);
+      const s = open.pop();
+      const gs = space.g.a[s];
+      if (open.topAux > gs) continue; // stale entry: a cheaper path was pushed later
+      if (space.closed.a[s] !== 0) continue;
+      if (open.topKey1 > lowerBound) lowerBound = open.topKey1;
+      const soff = space.table.offset(s);
+      if (isGoalState(ct, space.table.arena, soff)) return done("solved", s);
+      space.closed.a[s] = 1;
+      expanded++;
+      const n = tree.applicable(space.table.arena, soff, appl);
+      for (let i = 0; i < n; i++) {
+        const a = appl[i];
+        const inner = limits.check(expanded, space.table.size); // heuristic evaluations can be slow: check between them too
+        if (inner) return done("limit", -1, inner);
+        applyAction(ct, a, space.table.arena, soff, buf, 0, fired);
+        generated++;
+        const t = space.intern(buf);
+        const ng = gs + cost[a];
+        const g = space.g.a;
+        let ht: number;
+        if (space.table.isNew) {
+          g[t] = ng;
+          space.parent.a[t] = s;
+          space.via.a[t] = a;
+          ht = heur.evaluate(space.table.arena, space.table.offset(t));
+          space.h.a[t] = ht;
+        } else {
+          if (ng >= g[t]) continue;
+          ht = space.h.a[t];
+          g[t] = ng;
+          space.parent.a[t] = s;
+          space.via.a[t] = a;
+          if (space.closed.a[t] !== 0) {
+            space.closed.a[t] = 0;
+            reopened++;
+          }
         }
+        if (ht === Infinity) continue; // dead end: the goal is relaxed-unreachable from t
+        const f = ng + ht;
+        if (f > costBound) {
+          if (f < minPrunedF) minPrunedF = f;
+          continue;
+        }
+        open.push(f, ht, t, ng);
       }
-      if (ht === Infinity) continue; // dead end: the goal is relaxed-unreachable from t
-      const f = ng + ht;
-      if (f > costBound) {
-        if (f < minPrunedF) minPrunedF = f;
-        continue;
-      }
-      open.push(f, ht, t, ng);
     }
+  } catch (e) {
+    // a heuristic evaluation polls the run's limits too and throws when one is reached
+    return done("limit", -1, limitStop(e));
   }
   if (minPrunedF < Infinity) return done("limit", -1, "cost-bound");
   return done("unsolvable", -1);

@@ -3,7 +3,7 @@
 import type { Task } from "../ground/task.js";
 import { applyAction, compileTask, isGoalState, maxCondEffects } from "./compiled.js";
 import { KeyHeap } from "./heap.js";
-import { LimitChecker } from "./limits.js";
+import { LimitChecker, limitStop } from "./limits.js";
 import { makeHeuristic } from "./make-heuristic.js";
 import { SearchSpace } from "./search-space.js";
 import { GrowI32 } from "./state-table.js";
@@ -83,42 +83,49 @@ export function gbfs(task: Task, opts: GbfsOptions = {}): SearchResult {
   let boost = 0;
   let turn = 0;
 
-  while (open.size > 0 || pref.size > 0) {
-    const stop = limits.check(expanded, space.table.size);
-    if (stop) return done("limit", -1, stop);
-    const usePref = pref.size > 0 && (boost > 0 || (turn++ & 1) === 1 || open.size === 0);
-    if (boost > 0) boost--;
-    const s = usePref ? pref.pop() : open.pop();
-    if (space.closed.a[s] !== 0) continue;
-    space.closed.a[s] = 1;
-    expanded++;
-    const soff = space.table.offset(s);
-    const gs = space.g.a[s];
-    const stamp = s + 1;
-    if (helpful) for (let i = 0; i < helpLen.a[s]; i++) helpMark[helpPool[helpStart.a[s] + i]] = stamp;
-    const n = tree.applicable(space.table.arena, soff, appl);
-    // copy: evaluate() reuses `appl`
-    const succ = appl.slice(0, n);
-    for (let i = 0; i < n; i++) {
-      const a = succ[i];
-      applyAction(ct, a, space.table.arena, soff, buf, 0, fired);
-      generated++;
-      const t = space.intern(buf);
-      if (!space.table.isNew) continue;
-      space.g.a[t] = gs + ct.cost[a];
-      space.parent.a[t] = s;
-      space.via.a[t] = a;
-      if (isGoalState(ct, space.table.arena, space.table.offset(t))) return done("solved", t);
-      const ht = evaluate(t);
-      if (ht === Infinity) continue;
-      open.push(ht, counter, t);
-      if (helpful && helpMark[a] === stamp) pref.push(ht, counter, t);
-      counter++;
-      if (ht < bestH) {
-        bestH = ht;
-        if (helpful) boost = BOOST;
+  try {
+    while (open.size > 0 || pref.size > 0) {
+      const stop = limits.check(expanded, space.table.size);
+      if (stop) return done("limit", -1, stop);
+      const usePref = pref.size > 0 && (boost > 0 || (turn++ & 1) === 1 || open.size === 0);
+      if (boost > 0) boost--;
+      const s = usePref ? pref.pop() : open.pop();
+      if (space.closed.a[s] !== 0) continue;
+      space.closed.a[s] = 1;
+      expanded++;
+      const soff = space.table.offset(s);
+      const gs = space.g.a[s];
+      const stamp = s + 1;
+      if (helpful) for (let i = 0; i < helpLen.a[s]; i++) helpMark[helpPool[helpStart.a[s] + i]] = stamp;
+      const n = tree.applicable(space.table.arena, soff, appl);
+      // copy: evaluate() reuses `appl`
+      const succ = appl.slice(0, n);
+      for (let i = 0; i < n; i++) {
+        const a = succ[i];
+        const inner = limits.check(expanded, space.table.size); // heuristic evaluations can be slow: check between them too
+        if (inner) return done("limit", -1, inner);
+        applyAction(ct, a, space.table.arena, soff, buf, 0, fired);
+        generated++;
+        const t = space.intern(buf);
+        if (!space.table.isNew) continue;
+        space.g.a[t] = gs + ct.cost[a];
+        space.parent.a[t] = s;
+        space.via.a[t] = a;
+        if (isGoalState(ct, space.table.arena, space.table.offset(t))) return done("solved", t);
+        const ht = evaluate(t);
+        if (ht === Infinity) continue;
+        open.push(ht, counter, t);
+        if (helpful && helpMark[a] === stamp) pref.push(ht, counter, t);
+        counter++;
+        if (ht < bestH) {
+          bestH = ht;
+          if (helpful) boost = BOOST;
+        }
       }
     }
+  } catch (e) {
+    // a heuristic evaluation polls the run's limits too and throws when one is reached
+    return done("limit", -1, limitStop(e));
   }
   return done("unsolvable", -1);
 }

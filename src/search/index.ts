@@ -13,6 +13,7 @@ export type {
 } from "./types.js";
 export { astar, astarWith } from "./astar.js";
 export { gbfs } from "./gbfs.js";
+export { limitStop } from "./limits.js";
 export { compileTask, applyAction, isGoalState, type CompiledTask } from "./compiled.js";
 export { SuccessorTree } from "./successor-tree.js";
 export { StateTable } from "./state-table.js";

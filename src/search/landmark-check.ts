@@ -2,6 +2,7 @@
 // landmark-cut implementation: each landmark by plain relaxed reachability, then the costs.
 import type { Task } from "../ground/task.js";
 import type { LandmarkRecord } from "./types.js";
+import { poll } from "../util/limits.js";
 
 /**
  * Can the positive goal be reached in the delete relaxation when the actions in `removed`
@@ -15,6 +16,7 @@ export function relaxedReachableWithout(task: Task, removed: ReadonlySet<number>
   const holds = (facts: readonly number[]) => facts.every((f) => reached.has(f));
   let changed = true;
   while (changed) {
+    poll("checking landmarks");
     changed = false;
     task.actions.forEach((a, i) => {
       if (removed.has(i) || !holds(a.pre)) return;
@@ -49,6 +51,7 @@ export function checkLandmarkCertificate(task: Task, rec: LandmarkRecord): Landm
   const charged = new Float64Array(n);
   let sum = 0;
   for (let i = 0; i < rec.landmarks.length; i++) {
+    poll("checking landmarks");
     const lm = rec.landmarks[i];
     const label = `landmark ${i + 1}`;
     if (!lm || !Array.isArray(lm.actions)) return { valid: false, reason: `${label}: malformed` };

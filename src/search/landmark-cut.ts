@@ -3,6 +3,7 @@
 import type { Landmark } from "./types.js";
 import type { StateHeuristic } from "./heuristic.js";
 import { MAX, RelaxedExplorer, type RelaxedTask } from "./relaxed.js";
+import { poll } from "../util/limits.js";
 
 /**
  * Landmark-cut on the relaxed task. Remaining costs are kept per ACTION, not per relaxed
@@ -61,6 +62,7 @@ export class LandmarkCutHeuristic implements StateHeuristic {
     let hmax0 = -1;
     let hmax = ex.explore(s, off, this.words, rem, MAX, false);
     for (;;) {
+      poll("landmark-cut");
       if (hmax === Infinity) return Infinity;
       if (hmax0 < 0) hmax0 = hmax;
       if (hmax === 0) {

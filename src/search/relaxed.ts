@@ -3,6 +3,7 @@
 import type { Task } from "../ground/task.js";
 import { rowsOf, type Rows } from "./compiled.js";
 import { KeyHeap } from "./heap.js";
+import { poll } from "../util/limits.js";
 
 /**
  * Relaxed operators. Negative preconditions, negative effect conditions and negative goals
@@ -154,6 +155,7 @@ export class RelaxedExplorer {
     const opAction = rt.opAction;
     const goal = rt.goal;
     while (heap.size > 0) {
+      poll("heuristic");
       const f = heap.pop();
       if (done[f]) continue;
       done[f] = 1;
@@ -201,6 +203,7 @@ export class RelaxedExplorer {
       }
     }
     while (heap.size > 0) {
+      poll("heuristic");
       const f = heap.pop();
       if (heap.topKey1 > fc[f]) continue;
       for (let k = preOps.start[f]; k < preOps.start[f + 1]; k++) {

@@ -13,7 +13,7 @@ export function setLogger(l: Logger): void {
   current = l;
 }
 
-export function makeLogger(level: string, dest: NodeJS.WritableStream | number = 2): Logger {
+export function makeLogger(level: string, dest: { write(line: string): unknown } | number = 2): Logger {
   const destination = typeof dest === "number" ? pino.destination(dest) : dest;
-  return pino({ level, base: undefined, timestamp: pino.stdTimeFunctions.isoTime }, destination);
+  return pino({ level, base: undefined, timestamp: pino.stdTimeFunctions.isoTime }, destination as NodeJS.WritableStream);
 }

@@ -5,6 +5,8 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import type { Task } from "../../src/ground/task.js";
 import { dependencyGraph, findVariables, pairReachability, prepareTask, relevanceFilter, simplifyTask, withComponents } from "../../src/analyse/index.js";
+import { ground } from "../../src/ground/index.js";
+import { modelFromTexts } from "../../src/pddl/index.js";
 import { optimalCost, reachableStates } from "../support/reference.js";
 import { richTaskArb, transitionTaskArb } from "../horizon/rich-task.js";
 import { blocksWorld, eightPuzzle, hanoi } from "../measure/puzzles.js";
@@ -78,6 +80,26 @@ describe("finite-domain variables", () => {
 });
 
 describe("relevance pruning and simplification", () => {
+  it("maps each branch of a disjunctive precondition to its own ground action (they share a name)", () => {
+    const domain = `(define (domain branches) (:requirements :strips :disjunctive-preconditions)
+      (:predicates (p) (q) (noise) (g))
+      (:action make-noise :parameters () :precondition () :effect (noise))
+      (:action make-p :parameters () :precondition (q) :effect (and (p) (not (q))))
+      (:action go :parameters () :precondition (or (p) (q)) :effect (g)))`;
+    const problem = `(define (problem b1) (:domain branches) (:init (q)) (:goal (g)))`;
+    const task = ground(modelFromTexts(domain, "d.pddl", problem, "p.pddl"), { relevance: false });
+    const branches = task.actions.map((a, i) => [a, i] as const).filter(([a]) => a.name === "(go)");
+    expect(branches.length).toBe(2); // one ground action per disjunct, both named (go)
+    const r = relevanceFilter(task);
+    const ids = [...r.actionMap];
+    expect(new Set(ids).size).toBe(ids.length);
+    r.task.actions.forEach((a, i) => {
+      const orig = task.actions[r.actionMap[i]];
+      expect(a.name).toBe(orig.name);
+      expect(a.pre.map((f) => task.facts[r.factMap[f]])).toEqual(orig.pre.map((f) => task.facts[f]));
+    });
+  });
+
   it("never change the optimal cost (Dijkstra on both)", () => {
     let pruned = 0;
     fc.assert(
@@ -90,7 +112,16 @@ describe("relevance pruning and simplification", () => {
         const p = prepareTask(task);
         expect(optimalCost(p.task)?.cost ?? null).toBe(before?.cost ?? null);
         // plans of the reduced task map back to action ids of the original
-        p.actionMap.forEach((orig, i) => expect(p.task.actions[i].name).toBe(task.actions[orig].name));
+        // (the same action: its conditions and effects, read through the fact map, are the original's)
+        p.actionMap.forEach((orig, i) => {
+          const mine = p.task.actions[i];
+          const theirs = task.actions[orig];
+          expect(mine.name).toBe(theirs.name);
+          expect(mine.cost).toBe(theirs.cost);
+          for (const key of ["pre", "preNeg", "add", "del"] as const) {
+            for (const f of mine[key]) expect(theirs[key]).toContain(p.factMap[f]);
+          }
+        });
         if (p.task.actions.length < task.actions.length) pruned++;
       }),
       { numRuns: 200, seed: 4203 },

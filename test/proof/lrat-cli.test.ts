@@ -79,7 +79,7 @@ describe("plumbline check-proof with LRAT", () => {
     expect(existsSync(out)).toBe(false);
     const same = await cli(["check-proof", cnfPath, dratPath, "--lrat", dratPath]);
     expect(same.code).toBe(2);
-    expect(same.stderr).toMatch(/would overwrite an input file/);
+    expect(same.stderr).toMatch(/is an input of this command/);
     expect(readFileSync(dratPath, "latin1")).not.toMatch(/ 0 .* 0\n/); // still the DRAT proof, not LRAT
     const g = await cli(["check-proof", cnfPath, dratPath, "--format", "lrat", "--lrat", out]);
     expect(g.code).toBe(2);

@@ -25,7 +25,7 @@ function entryJson(e: BulkEntry): Record<string, unknown> {
 
 function details(e: BulkEntry, all: boolean): string[] {
   const lines = [`${e.dir}: ${VERDICT_TEXT[e.verdict]}${e.reason ? ` — ${e.reason}` : ""}`];
-  for (const c of e.checks) if (all || (!c.ok && !c.skipped)) lines.push(`  ${c.ok ? "ok  " : c.skipped ? "skip" : "FAIL"}  ${c.name}: ${c.detail}`);
+  for (const c of e.checks) if (all || (!c.ok && !c.skipped)) lines.push(`  ${c.ok ? "ok  " : c.stopped ? "stop" : c.skipped ? "skip" : "FAIL"}  ${c.name}: ${c.detail}`);
   return lines;
 }
 

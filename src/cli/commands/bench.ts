@@ -1,12 +1,14 @@
 // `plumbline bench SUITE`: runs a benchmark suite in child processes and writes results.jsonl,
 // tables, charts and an HTML report; also exports a suite as a cluster job array, runs one
 // array task, and merges the tasks' results. Wiring only; the work is in src/bench.
-import { resolve } from "node:path";
+import { existsSync } from "node:fs";
+import { join, resolve } from "node:path";
 import type { Command } from "commander";
 import { CONFIGURATIONS, DEFAULT_MEMORY_LIMIT, DEFAULT_TIME_LIMIT, exportSlurm, mergeTasks, runBench, runTask } from "../../bench/index.js";
 import { PlumblineError } from "../../util/errors.js";
 import { positiveNumber } from "../options.js";
 import { withCommonOptions, type CliContext } from "../context.js";
+import { checkOutputs } from "../output-paths.js";
 
 interface BenchCliOptions {
   json?: boolean;
@@ -70,7 +72,7 @@ export function registerBench(program: Command, ctx: CliContext): void {
     if (opts.merge !== undefined) {
       const m = mergeTasks(opts.merge);
       ctx.exitCode = m.agreement.findings.length ? 1 : 0;
-      if (m.missing.length) ctx.log.warn(`${m.missing.length} task(s) have no result yet: ${m.missing.slice(0, 20).join(", ")}${m.missing.length > 20 ? ", …" : ""}`);
+      if (m.missing.length) ctx.warn(`${m.missing.length} task(s) have no result yet: ${m.missing.slice(0, 20).join(", ")}${m.missing.length > 20 ? ", …" : ""}`);
       ctx.result({ dir: m.dir, runs: m.records.length, missing: m.missing, results: resolve(m.dir, "results.jsonl"), report: m.html, findings: m.agreement.findings });
       ctx.out(`${m.text}\n\nmerged ${m.records.length} task result(s)${m.missing.length ? `, ${m.missing.length} missing` : ""}\nreport: ${m.html}`);
       return;
@@ -88,14 +90,17 @@ export function registerBench(program: Command, ctx: CliContext): void {
     if (opts.export !== undefined) {
       const [kind, dir, ...rest] = opts.export;
       if (kind !== "slurm" || dir === undefined || rest.length) throw new PlumblineError("usage", `--export expects 'slurm DIR', found '${opts.export.join(" ")}'`);
+      checkOutputs([{ flag: "--export slurm", path: dir, kind: "folder", reuseIf: (d) => existsSync(join(d, "tasks.jsonl")) }], [suite]);
       const e = exportSlurm({ suite, ...common }, dir);
       ctx.result({ dir: e.dir, tasks: e.tasks, script: e.script, taskList: e.taskList });
       ctx.out(`exported ${e.tasks} runs to ${e.dir}\n  task list  ${e.taskList}\n  script     ${e.script}\nsubmit with: cd ${e.dir} && sbatch bench.sbatch   then: plumbline bench --merge ${e.dir}`);
       return;
     }
     const outDir = opts.out ?? `bench-results/${suite.replace(/\/+$/, "").split("/").pop()?.replace(/\.json$/i, "") ?? "suite"}-${stamp()}`;
+    // an existing folder is resumed when it holds an earlier run of this command
+    checkOutputs([{ flag: "--out", path: outDir, kind: "folder", reuseIf: (d) => existsSync(join(d, "results.jsonl")) || existsSync(join(d, "bench.json")) }], [suite]);
     const r = await runBench({ suite, outDir, progress, ...common });
-    for (const w of r.warnings) ctx.log.warn(w);
+    for (const w of r.warnings) ctx.warn(w);
     ctx.exitCode = r.agreement.findings.length ? 1 : r.interrupted ? 3 : 0;
     ctx.result({ out: r.outDir, runs: r.records.length, ran: r.ran, skipped: r.skipped, interrupted: r.interrupted, results: resolve(r.outDir, "results.jsonl"), report: r.html, findings: r.agreement.findings });
     ctx.out(`${r.text}\n\n${r.ran} run(s) done now, ${r.skipped} from before${r.interrupted ? " (interrupted: re-run the same command to finish)" : ""}\nresults: ${resolve(r.outDir, "results.jsonl")}\nreport:  ${r.html}`);

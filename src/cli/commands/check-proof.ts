@@ -1,13 +1,13 @@
 // `plumbline check-proof CNF PROOF`: checks a DRAT proof (binary or text, gzip or not) with the
 // stand-alone checker in src/proof, optionally writing an LRAT proof, or checks an LRAT proof
 // with the separate simple LRAT checker. Wiring only.
-import { resolve } from "node:path";
 import { Option, type Command } from "commander";
 import { checkDratFiles, checkLrat, readCnfForChecker, type CheckMode } from "../../proof/index.js";
 import { readBytes } from "../../util/files.js";
 import { PlumblineError } from "../../util/errors.js";
 import { withCommonOptions, type CliContext } from "../context.js";
 import { deadlineFrom } from "../options.js";
+import { checkOutputs } from "../output-paths.js";
 
 interface CheckProofCliOptions {
   json?: boolean;
@@ -41,7 +41,7 @@ export function registerCheckProof(program: Command, ctx: CliContext): void {
     if (opts.format === "lrat") {
       if (opts.lrat !== undefined) throw new PlumblineError("usage", "--lrat writes an LRAT proof from a DRAT proof; it cannot be combined with --format lrat");
       const cnf = readCnfForChecker(readBytes(cnfPath), cnfPath);
-      for (const w of cnf.warnings) ctx.log.warn(w);
+      for (const w of cnf.warnings) ctx.warn(w);
       const r = checkLrat(cnf, readBytes(proofPath));
       ctx.exitCode = r.valid ? 0 : 1;
       const s = r.stats;
@@ -51,12 +51,10 @@ export function registerCheckProof(program: Command, ctx: CliContext): void {
       return;
     }
     if (opts.lrat !== undefined && opts.mode === "forward") throw new PlumblineError("usage", "--lrat needs the backward mode");
-    if (opts.lrat !== undefined && [cnfPath, proofPath].some((p) => resolve(p) === resolve(opts.lrat as string))) {
-      throw new PlumblineError("usage", `--lrat ${opts.lrat} would overwrite an input file; choose another name`);
-    }
+    checkOutputs([opts.lrat !== undefined ? { flag: "--lrat", path: opts.lrat, kind: "file" } : null], [cnfPath, proofPath]);
     const deadline = deadlineFrom(opts.timeLimit);
     const r = checkDratFiles(cnfPath, proofPath, { mode: opts.mode ?? "backward", deadline, signal: ctx.signal, lratFile: opts.lrat });
-    for (const w of r.warnings) ctx.log.warn(w);
+    for (const w of r.warnings) ctx.warn(w);
     const stopped = !r.valid && (r.reason ?? "").startsWith("stopped");
     ctx.exitCode = r.valid ? 0 : stopped ? 3 : 1;
     const s = r.stats;

@@ -8,6 +8,7 @@ import { boundSettings, buildFormula, costSetting, DEFAULT_ENCODING, formulaId, 
 import { PlumblineError } from "../../util/errors.js";
 import { tempNameFor } from "../../util/files.js";
 import { withCommonOptions, type CliContext } from "../context.js";
+import { checkOutputs } from "../output-paths.js";
 
 interface EncodeCliOptions {
   json?: boolean;
@@ -52,6 +53,7 @@ export function registerEncode(program: Command, ctx: CliContext): void {
     ctx.configure(opts);
     const steps = wholeNumber("--steps", opts.steps, 0)!;
     const below = wholeNumber("--cost-below", opts.costBelow, 1);
+    checkOutputs([opts.output !== undefined ? { flag: "--output", path: opts.output, kind: "file" } : null], [domain, problem]);
     const { task } = groundFiles(domain, problem, OPTIMIZE_GROUNDING);
     const prepared = prepareTask(task);
     const choice = resolveEncoding(opts.encoding);

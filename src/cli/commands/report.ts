@@ -10,6 +10,7 @@ import { auditViewOf, certificateReportHtml, singleAuditJson, detectReportDir, f
 import { PlumblineError } from "../../util/errors.js";
 import { writeFileAtomic } from "../../util/files.js";
 import { withCommonOptions, type CliContext } from "../context.js";
+import { checkOutputs } from "../output-paths.js";
 
 interface ReportCliOptions {
   json?: boolean;
@@ -36,6 +37,7 @@ export function registerReport(program: Command, ctx: CliContext): void {
       .option("--time-limit <seconds>", "certificate: give up checking the proof after this many seconds (default 600; the audit then shows as not passed)"),
   ).action(async (dir: string, opts: ReportCliOptions) => {
     ctx.configure(opts);
+    checkOutputs([opts.out !== undefined ? { flag: "--out", path: opts.out, kind: "file" } : null], [dir]);
     const kind = detectReportDir(dir);
     if (kind === "export") throw new PlumblineError("usage", `${dir} is an exported job array without merged results: run plumbline bench --merge ${dir} first`);
     if (kind === "bench") {
@@ -65,7 +67,7 @@ export function registerReport(program: Command, ctx: CliContext): void {
       if (!(limit > 0)) throw new PlumblineError("usage", `--time-limit expects a positive number of seconds, found '${opts.timeLimit}'`);
       ctx.note(`auditing ${dir} …`);
       const r = auditCertificate(dir, { deadline: Date.now() + limit * 1000, signal: ctx.signal });
-      audit = auditViewOf({ valid: r.valid, checks: r.checks }, "run", r.seconds);
+      audit = auditViewOf({ valid: r.valid, finished: r.finished, checks: r.checks }, "run", r.seconds);
     }
     const out = opts.out ?? `${resolve(dir).replace(/\/+$/, "")}.report.html`;
     writeFileAtomic(out, certificateReportHtml(view, audit));

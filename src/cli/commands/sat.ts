@@ -5,6 +5,7 @@ import { FileProofWriter, Solver, readDimacsFile, solveExternal, type ProofForma
 import { PlumblineError } from "../../util/errors.js";
 import { withCommonOptions, type CliContext } from "../context.js";
 import { deadlineFrom } from "../options.js";
+import { checkOutputs } from "../output-paths.js";
 
 interface SatCliOptions {
   json?: boolean;
@@ -67,9 +68,10 @@ export function registerSat(program: Command, ctx: CliContext): void {
     const engine = opts.sat ?? "builtin";
     if (engine !== "builtin" && !engine.startsWith("external:")) throw new PlumblineError("usage", `--sat expects builtin or external:CMD, found '${engine}'`);
     const format: ProofFormat = opts.proofFormat ?? "binary";
+    checkOutputs([opts.proof !== undefined ? { flag: "--proof", path: opts.proof, kind: "file" } : null], [cnfPath]);
     const t0 = performance.now();
     const cnf = readDimacsFile(cnfPath);
-    for (const w of cnf.warnings) ctx.log.warn(w);
+    for (const w of cnf.warnings) ctx.warn(w);
     const parseSeconds = (performance.now() - t0) / 1000;
     ctx.note(`read ${cnf.numVars} variables, ${cnf.numClauses} clauses in ${parseSeconds.toFixed(2)} s`);
 

@@ -3,10 +3,11 @@
 import { Option, type Command } from "commander";
 import { groundFiles } from "../../ground/index.js";
 import { formatPlan } from "../../plan/index.js";
-import { astar, gbfs, planNames, planSteps, type HeuristicName, type SearchResult } from "../../search/index.js";
+import { astar, gbfs, limitStop, planNames, planSteps, type HeuristicName, type SearchResult } from "../../search/index.js";
 import { PlumblineError } from "../../util/errors.js";
 import { writeFileAtomic } from "../../util/files.js";
 import { deadlineFrom } from "../options.js";
+import { checkOutputs } from "../output-paths.js";
 import { withCommonOptions, type CliContext } from "../context.js";
 
 interface SearchCliOptions {
@@ -55,7 +56,19 @@ export function registerSearch(program: Command, ctx: CliContext): void {
     if (!greedy && (heuristic === "ff" || heuristic === "add")) {
       throw new PlumblineError("usage", `--heuristic ${heuristic} is not admissible: use it with --greedy, or choose landmark-cut, max or blind for A*`);
     }
-    const { model, task, seconds: groundSeconds } = groundFiles(domain, problem);
+    checkOutputs([opts.plan !== undefined ? { flag: "--plan", path: opts.plan, kind: "file" } : null], [domain, problem]);
+    let grounded;
+    try {
+      grounded = groundFiles(domain, problem);
+    } catch (e) {
+      // a limit reached while reading or grounding: the same result shape, no plan
+      const stopReason = limitStop(e);
+      ctx.exitCode = 3;
+      ctx.result({ status: "unknown", algorithm: greedy ? "gbfs" : "astar", heuristic, cost: null, length: null, plan: null, lowerBound: null, stopReason, planFile: null });
+      ctx.out(`status     unknown (${stopReason} limit reached while reading and grounding)`);
+      return;
+    }
+    const { model, task, seconds: groundSeconds } = grounded;
     ctx.note(`grounded ${task.facts.length} facts, ${task.actions.length} actions in ${groundSeconds.toFixed(2)} s; searching (${greedy ? "greedy best-first" : "A*"}, ${heuristic})`);
     const limits = { deadline, signal: ctx.signal };
     const r: SearchResult = greedy

@@ -6,6 +6,7 @@ import { DEFAULT_ENCODING, disposeOutcome, optimizeFiles, resolveEncoding, type 
 import { PlumblineError } from "../../util/errors.js";
 import { writeFileAtomic } from "../../util/files.js";
 import { positiveNumber } from "../options.js";
+import { checkOutputs, isCertificateFolder } from "../output-paths.js";
 import { withCommonOptions, type CliContext } from "../context.js";
 
 interface SolveCliOptions {
@@ -64,6 +65,10 @@ export function registerSolve(program: Command, ctx: CliContext): void {
     const timeLimit = positiveNumber("--time-limit", opts.timeLimit);
     const memoryLimitMb = positiveNumber("--memory-limit", opts.memoryLimit);
     resolveEncoding(opts.encoding); // a usage error before any work
+    checkOutputs(
+      [opts.plan !== undefined ? { flag: "--plan", path: opts.plan, kind: "file" } : null, opts.certificate !== undefined ? { flag: "--certificate", path: opts.certificate, kind: "folder", reuseIf: isCertificateFolder } : null],
+      [domain, problem],
+    );
     const sat = opts.sat ?? "builtin";
     if (sat !== "builtin" && !(sat.startsWith("external:") && sat.length > "external:".length)) throw new PlumblineError("usage", `--sat expects builtin or external:CMD, found '${sat}'`);
     const out = await optimizeFiles(domain, problem, {
