@@ -145,12 +145,15 @@ export function auditCertificate(dir: string, opts: AuditOptions = {}): AuditRep
   }
 }
 
+/** Valid: every check passed. Finished: no limit stopped a check, or a check failed (rejected whatever the time). */
+export function auditVerdict(checks: readonly AuditCheck[]): { valid: boolean; finished: boolean } {
+  const finished = !checks.some((x) => x.stopped) || checks.some((x) => !x.ok && !x.skipped && !x.stopped);
+  return { valid: finished && checks.length > 0 && checks.every((x) => x.ok), finished };
+}
+
 function reportOf(c: Checks, t0: number, dir: string, cert: CertificateJson): AuditReport {
-  // a failed check is a verdict (rejected) even when a limit stopped a later one
-  const finished = !c.list.some((x) => x.stopped) || c.list.some((x) => !x.ok && !x.skipped && !x.stopped);
   return {
-    valid: finished && c.list.length > 0 && c.list.every((x) => x.ok),
-    finished,
+    ...auditVerdict(c.list),
     dir,
     claim: isObj(cert.claim) ? { status: String(cert.claim.status), how: String(cert.claim.how) } : null,
     cost: isObj(cert.plan) && typeof cert.plan.cost === "number" ? cert.plan.cost : null,

@@ -1,7 +1,7 @@
 // The certify stage's public API: write a certificate directory for a proven claim, and
 // audit one from scratch (re-derive everything, check the proof with src/proof).
 export { writeCertificate, sha256, sha256File, type WrittenCertificate } from "./write.js";
-export { auditCertificate, readCertificateJson, firstDifference, type AuditReport, type AuditCheck, type AuditOptions } from "./audit.js";
+export { auditCertificate, auditVerdict, readCertificateJson, firstDifference, type AuditReport, type AuditCheck, type AuditOptions } from "./audit.js";
 export { FORMAT_VERSION, FILES, CAUTION, CNF_FORM, type CertificateJson } from "./format.js";
 export { dratChecker } from "./proof-check.js";
 export { auditMany, auditDirs, bulkExitCode, entryOf, stoppedEarly, GRACE_SECONDS, type BulkEntry, type BulkVerdict, type BulkOptions } from "./bulk.js";

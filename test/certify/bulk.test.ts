@@ -4,7 +4,7 @@ import * as fs from "node:fs";
 import { tmpdir } from "node:os";
 import * as path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { auditCertificate, auditMany, bulkExitCode, discoverCertificates, entryOf, stoppedEarly, type AuditReport, type BulkEntry } from "../../src/certify/index.js";
+import { auditCertificate, auditVerdict, auditMany, bulkExitCode, discoverCertificates, entryOf, stoppedEarly, type AuditReport, type BulkEntry } from "../../src/certify/index.js";
 
 const legacy = path.resolve(import.meta.dirname, "fixtures/legacy");
 const work = fs.mkdtempSync(path.join(tmpdir(), "plumbline-bulk-"));
@@ -109,9 +109,9 @@ describe("auditMany", () => {
 });
 
 describe("verdicts and exit codes", () => {
-  const report = (checks: AuditReport["checks"]): AuditReport => ({ valid: checks.every((c) => c.ok), dir: "d", claim: null, cost: null, checks, seconds: 1 });
-  it("a proof check cut short by the limit is unfinished, unless another check failed", () => {
-    const stopped = { name: "proof-check", ok: false, detail: "the DRAT proof is rejected: stopped: time limit or abort before the check finished" };
+  const report = (checks: AuditReport["checks"]): AuditReport => ({ ...auditVerdict(checks), dir: "d", claim: null, cost: null, checks, seconds: 1 });
+  it("a check cut short by the limit is unfinished, unless another check failed", () => {
+    const stopped = { name: "proof-check", ok: false, detail: "not finished: a limit stopped the proof check before it ended", stopped: true };
     expect(stoppedEarly(report([{ name: "format", ok: true, detail: "" }, stopped]))).toBe(true);
     expect(entryOf(report([stopped])).verdict).toBe("unfinished");
     expect(entryOf(report([{ name: "plan-cost", ok: false, detail: "x" }, stopped])).verdict).toBe("rejected");
