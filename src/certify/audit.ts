@@ -13,7 +13,7 @@ import { checkDrat } from "../proof/index.js";
 import { checkLandmarkCertificate, relaxedReachableWithout, type LandmarkRecord } from "../search/index.js";
 import { PlumblineError } from "../util/errors.js";
 import { isLimitReached, withLimits, type LimitReached } from "../util/limits.js";
-import { FILES, FORMAT_VERSION, type CertificateJson } from "./format.js";
+import { AUDITABLE_FORMAT_VERSIONS, FILES, type CertificateJson } from "./format.js";
 import { sha256 } from "./write.js";
 
 export interface AuditCheck {
@@ -167,14 +167,15 @@ function auditWith(c: Checks, t0: number, dir: string, opts: AuditOptions): Audi
   const report = (): AuditReport => reportOf(c, t0, dir, cert);
 
   // --- the record itself -------------------------------------------------------------------
+  const versionOk = AUDITABLE_FORMAT_VERSIONS.includes(cert.formatVersion);
   const claimOk =
-    cert.formatVersion === FORMAT_VERSION && isObj(cert.claim) && CLAIMS[cert.claim.status]?.includes(cert.claim.how) === true && (cert.claim.status === "optimal") === isObj(cert.plan);
+    versionOk && isObj(cert.claim) && CLAIMS[cert.claim.status]?.includes(cert.claim.how) === true && (cert.claim.status === "optimal") === isObj(cert.plan);
   c.check(
     "format",
     claimOk,
-    `format version ${FORMAT_VERSION}, claim ${cert.claim?.status} by ${cert.claim?.how}`,
-    cert.formatVersion !== FORMAT_VERSION
-      ? `format version ${JSON.stringify(cert.formatVersion)} is not ${FORMAT_VERSION}`
+    `format version ${cert.formatVersion}, claim ${cert.claim?.status} by ${cert.claim?.how}`,
+    !versionOk
+      ? `format version ${JSON.stringify(cert.formatVersion)} is not one this version reads (${AUDITABLE_FORMAT_VERSIONS.join(", ")})`
       : `the claim ${JSON.stringify(cert.claim)} is not one of: optimal by horizon-unsat or lower-bound (with a plan), unsolvable by horizon-unsat or relaxed-unreachable (without one)`,
   );
   if (!claimOk) return report();

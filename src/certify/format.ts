@@ -1,7 +1,14 @@
 // The certificate's layout (DESIGN "Certificates"): file names, the certificate.json shape
 // and its version — shared by the writer and the auditor so that they cannot drift apart.
 
+/** The version this code writes. */
 export const FORMAT_VERSION = 1;
+/**
+ * Every version the audit reads: the current one and every earlier one (DESIGN "Audit and older
+ * certificates"). Bumping FORMAT_VERSION means adding it here and keeping a certificate of the
+ * previous version under test/certify/fixtures/legacy (test/certify/legacy.test.ts checks both).
+ */
+export const AUDITABLE_FORMAT_VERSIONS: readonly number[] = [1];
 export const CERTIFICATE_KIND = "plumbline-certificate";
 
 export const FILES = {

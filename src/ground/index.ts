@@ -4,3 +4,4 @@ export * from "./task.js";
 export { ground, groundFiles, costModelOf, type GroundOptions } from "./ground.js";
 export { pruneIrrelevant, pruneIrrelevantMapped } from "./relevance.js";
 export { GOAL_FACT, GOAL_ACTION_SCHEMA, UNREACHABLE_GOAL_FACT } from "./goal.js";
+export { diffTasks, type TaskDiff, type TaskChangeKind } from "./diff.js";

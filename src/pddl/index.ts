@@ -9,3 +9,4 @@ export { SUPPORTED_REQUIREMENTS, REFUSED_REQUIREMENTS } from "./requirements.js"
 export { atomText, formulaText, termText } from "./print.js";
 export { readSexprs, type SNode, type SList, type SAtom } from "./sexpr.js";
 export { cartesian } from "./cartesian.js";
+export { tokenSignature } from "./signature.js";

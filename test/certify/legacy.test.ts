@@ -5,7 +5,7 @@ import { tmpdir } from "node:os";
 import * as path from "node:path";
 import { gunzipSync, gzipSync } from "node:zlib";
 import { afterAll, describe, expect, it } from "vitest";
-import { auditCertificate, sha256 } from "../../src/certify/index.js";
+import { AUDITABLE_FORMAT_VERSIONS, auditCertificate, FORMAT_VERSION, sha256 } from "../../src/certify/index.js";
 import { computeHorizon } from "../../src/horizon/index.js";
 import { groundFiles } from "../../src/ground/index.js";
 import { optimalCost } from "../support/reference.js";
@@ -53,6 +53,13 @@ describe("certificates of an earlier version", () => {
   it("are the four expected fixtures, small", () => {
     expect(fixtures).toEqual(["harbour-01-forall-1", "harbour-01-forall-2-plain", "harbour-01-seq-1", "one-shot-unsolvable"]);
     for (const f of fixtures) for (const file of fs.readdirSync(path.join(legacy, f))) expect(fs.statSync(path.join(legacy, f, file)).size).toBeLessThan(20_000);
+  });
+
+  it("every format version the audit reads is kept: the current one is written, each earlier one has a fixture", () => {
+    expect(AUDITABLE_FORMAT_VERSIONS).toContain(FORMAT_VERSION);
+    const kept = new Set(fixtures.map((f) => readCert(path.join(legacy, f)).formatVersion));
+    for (const v of AUDITABLE_FORMAT_VERSIONS) if (v !== FORMAT_VERSION) expect(kept.has(v), `a fixture of format version ${v}`).toBe(true);
+    for (const v of kept) expect(AUDITABLE_FORMAT_VERSIONS).toContain(v);
   });
 
   for (const name of fixtures) {

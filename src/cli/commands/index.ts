@@ -15,7 +15,8 @@ import { registerReport } from "./report.js";
 import { registerSolve } from "./solve.js";
 import { registerAudit } from "./audit.js";
 import { registerEncode } from "./encode.js";
+import { registerRejudge } from "./rejudge.js";
 
 export type RegisterCommand = (program: Command, ctx: CliContext) => void;
 
-export const commands: RegisterCommand[] = [registerGround, registerReplay, registerSearch, registerCompare, registerHorizon, registerMeasure, registerSat, registerCheckProof, registerBench, registerReport, registerSolve, registerAudit, registerEncode];
+export const commands: RegisterCommand[] = [registerGround, registerReplay, registerSearch, registerCompare, registerHorizon, registerMeasure, registerSat, registerCheckProof, registerBench, registerReport, registerSolve, registerAudit, registerRejudge, registerEncode];
