@@ -8,6 +8,7 @@ import { modelFromTexts, tokenSignature, type Model } from "../pddl/index.js";
 import { parsePlan, replayPlan, stepText } from "../plan/index.js";
 import { isPlumblineError, PlumblineError } from "../util/errors.js";
 import { readBytes, writeDirAtomic } from "../util/files.js";
+import { isLimitReached, withLimits } from "../util/limits.js";
 import { auditCertificate, readCertificateJson, type AuditReport } from "./audit.js";
 import { entryOf } from "./bulk.js";
 import { FILES, type CertificateJson } from "./format.js";
@@ -55,6 +56,8 @@ export interface RejudgeOptions {
   /** Where to write the new certificate (when optimality is proven). */
   certificateOut?: string;
   timeLimit?: number;
+  /** Absolute deadline (Date.now() ms); the earlier of this and timeLimit counts. */
+  deadline?: number;
   memoryLimitMb?: number;
   signal?: AbortSignal;
   onProgress?: (line: string) => void;
@@ -124,10 +127,19 @@ const HORIZON_WHY: Record<TaskDiff["kind"], string> = {
   other: "recomputed: the model changed beyond costs and whole actions",
 };
 
-/** Re-judges the certificate in `certDir` against the new domain and/or problem. */
-export async function rejudge(certDir: string, opts: RejudgeOptions = {}): Promise<RejudgeResult> {
+/**
+ * Re-judges the certificate in `certDir` against the new domain and/or problem, within the time
+ * and memory limits (every phase polls them: src/util/limits.ts).
+ */
+export function rejudge(certDir: string, opts: RejudgeOptions = {}): Promise<RejudgeResult> {
+  const deadline = Math.min(opts.deadline ?? Infinity, opts.timeLimit === undefined ? Infinity : Date.now() + opts.timeLimit * 1000);
+  const limited = { ...opts, deadline: Number.isFinite(deadline) ? deadline : undefined };
+  return withLimits({ deadline: limited.deadline, memoryLimitMb: opts.memoryLimitMb, signal: opts.signal }, () => rejudgeWithin(certDir, limited));
+}
+
+async function rejudgeWithin(certDir: string, opts: RejudgeOptions): Promise<RejudgeResult> {
   const t0 = performance.now();
-  const deadline = opts.timeLimit === undefined ? undefined : Date.now() + opts.timeLimit * 1000;
+  const deadline = opts.deadline;
   const cert = readCertificateJson(certDir);
   if (cert.claim?.status !== "optimal" || !cert.plan || typeof cert.plan.cost !== "number") {
     throw new PlumblineError("usage", `${certDir}: re-judging needs a certificate of an optimal plan; this one claims ${JSON.stringify(cert.claim?.status)} (use solve on the new model)`);
@@ -192,7 +204,7 @@ export async function rejudge(certDir: string, opts: RejudgeOptions = {}): Promi
   try {
     change = diffTasks(ground(modelFromTexts(text(oldDomain), oldDomainPath, text(oldProblem), oldProblemPath)), ground(model));
   } catch (e) {
-    base.notes.push(`the recorded model could not be ground for comparison: ${(e as Error).message}`);
+    base.notes.push(isLimitReached(e) ? `a limit stopped the comparison of the ground tasks (${e.message})` : `the recorded model could not be ground for comparison: ${(e as Error).message}`);
   }
   const notReused = (part: ReusedPart["part"], why: string): ReusedPart => ({ part, reused: false, why });
   const proofWhy = "the recorded proof refutes the old model's formula; a claim about the new model needs a proof of its own (a new certificate carries it)";
@@ -218,7 +230,16 @@ export async function rejudge(certDir: string, opts: RejudgeOptions = {}): Promi
   // 3. the recorded plan is valid at cost newCost: start the optimizer from it
   const newCost = replay.cost!;
   const planLines = planText.split("\n").filter((l) => l.trim().startsWith("("));
-  const task = ground(model, OPTIMIZE_GROUNDING);
+  const reuseHorizon = notReused("horizon", HORIZON_WHY[change?.kind ?? "other"]);
+  let task;
+  try {
+    task = ground(model, OPTIMIZE_GROUNDING);
+  } catch (e) {
+    if (!isLimitReached(e)) throw e;
+    const verdict: RejudgeVerdict = newCost !== recordedCost ? "cost-changed" : "undecided";
+    const r = { verdict, modelChanged: true, planValid: true, failure: null, newCost, optimal: null, cheaperPlan: null, certificate: null, audit: null, change };
+    return done({ ...r, reuse: [notReused("incumbent", `a limit stopped the run before the optimizer started (${e.message})`), reuseHorizon], provedBy: null, stopReason: e.reason, exitCode: EXIT[verdict] });
+  }
   const o: OptimizeOutcome = await optimize(model, task, OPTIMIZE_GROUNDING, {
     incumbent: planLines,
     probes: false,
@@ -263,7 +284,7 @@ export async function rejudge(certDir: string, opts: RejudgeOptions = {}): Promi
                 `(optimality still rests on the new proof); it replaces the first-plan search, and when the plan is still optimal only the final refutation is left`,
             }
           : notReused("incumbent", "the optimizer did not accept the recorded plan as a plan of its ground task (see the notes)"),
-        notReused("horizon", HORIZON_WHY[change?.kind ?? "other"]),
+        reuseHorizon,
         notReused("proof", proofWhy),
       ],
       provedBy: o.provedBy,

@@ -137,5 +137,10 @@ describe("plumbline audit on a folder of certificates", () => {
     const bad = await cli(["audit", certs, "--jobs", "0", "--junit", path.join(work, "never.xml")]);
     expect(bad.code).toBe(2);
     expect(fs.existsSync(path.join(work, "never.xml"))).toBe(false);
+    // the JUnit file may not go into a certificate folder given as a path, but may go into a searched folder
+    const into = await cli(["audit", path.join(certs, "good", "one-shot-unsolvable"), "--junit", path.join(certs, "good", "one-shot-unsolvable", "a.xml")]);
+    expect(into.code).toBe(2);
+    expect(into.stderr).toMatch(/--junit/);
+    expect((await cli(["audit", path.join(certs, "good"), "--junit", path.join(certs, "good", "audit.xml")])).code).toBe(0);
   }, 60_000);
 });

@@ -6,6 +6,7 @@ import { formatSeconds, formatTable, junitXml } from "../../report/index.js";
 import { writeFileAtomic } from "../../util/files.js";
 import { withCommonOptions, type CliContext } from "../context.js";
 import { positiveNumber, positiveOption } from "../options.js";
+import { checkOutputs, isCertificateFolder } from "../output-paths.js";
 
 interface AuditCliOptions {
   json?: boolean;
@@ -60,6 +61,8 @@ export function registerAudit(program: Command, ctx: CliContext): void {
       .option("--junit <file>", "also write the results as JUnit XML (one testcase per certificate) for a CI system"),
   ).action(async (paths: string[], opts: AuditCliOptions) => {
     ctx.configure(opts);
+    // the file may go into a folder that is searched (`audit . --junit audit.xml`), not into a certificate
+    checkOutputs([opts.junit !== undefined ? { flag: "--junit", path: opts.junit, kind: "file" } : null], paths.filter(isCertificateFolder));
     const timeLimit = positiveNumber("--time-limit", opts.timeLimit);
     const jobs = positiveOption("--jobs", opts.jobs, 1);
     const started = new Date();

@@ -3,7 +3,8 @@
 import type { Command } from "commander";
 import { rejudge, type RejudgeResult } from "../../certify/index.js";
 import { withCommonOptions, type CliContext } from "../context.js";
-import { positiveNumber } from "../options.js";
+import { deadlineFrom, positiveNumber } from "../options.js";
+import { checkOutputs, isCertificateFolder } from "../output-paths.js";
 
 interface RejudgeCliOptions {
   json?: boolean;
@@ -54,9 +55,10 @@ export function registerRejudge(program: Command, ctx: CliContext): void {
       .option("--memory-limit <MB>", "stop when resident memory passes this many MB"),
   ).action(async (certDir: string, opts: RejudgeCliOptions) => {
     ctx.configure(opts);
-    const timeLimit = positiveNumber("--time-limit", opts.timeLimit);
+    checkOutputs([opts.certificate !== undefined ? { flag: "--certificate", path: opts.certificate, kind: "folder", reuseIf: isCertificateFolder } : null], [certDir, ...(opts.domain ? [opts.domain] : []), ...(opts.problem ? [opts.problem] : [])]);
+    const deadline = deadlineFrom(opts.timeLimit);
     const memoryLimitMb = positiveNumber("--memory-limit", opts.memoryLimit);
-    const r = await rejudge(certDir, { domain: opts.domain, problem: opts.problem, certificateOut: opts.certificate, timeLimit, memoryLimitMb, signal: ctx.signal, onProgress: (l) => ctx.note(l) });
+    const r = await rejudge(certDir, { domain: opts.domain, problem: opts.problem, certificateOut: opts.certificate, deadline, memoryLimitMb, signal: ctx.signal, onProgress: (l) => ctx.note(l) });
     ctx.exitCode = r.exitCode;
     ctx.result({
       verdict: r.verdict,
