@@ -1,12 +1,14 @@
 // Audits many certificate folders, N at a time in child processes (one core each), each under
 // its own time limit; every folder gets a verdict: valid, rejected, unfinished, unreadable or error.
 import { fork, type ChildProcess } from "node:child_process";
-import { existsSync } from "node:fs";
+import { existsSync, readFileSync } from "node:fs";
+import * as path from "node:path";
 import { createRequire } from "node:module";
 import { fileURLToPath, pathToFileURL } from "node:url";
 import { isPlumblineError } from "../util/errors.js";
 import { auditCertificate, type AuditCheck, type AuditReport } from "./audit.js";
 import { discoverCertificates } from "./discover.js";
+import { FILES } from "./format.js";
 
 export type BulkVerdict = "valid" | "rejected" | "unfinished" | "unreadable" | "error";
 
@@ -82,6 +84,21 @@ export function entryOf(r: AuditReport): BulkEntry {
 
 const bare = (dir: string, verdict: BulkVerdict, reason: string, seconds = 0): BulkEntry => ({ dir, verdict, claim: null, cost: null, seconds, checks: [], failed: [], reason });
 
+/**
+ * A rough size of a certificate's audit, for ordering only: the DRAT check dominates, and it grows
+ * with the proof (uncompressed bytes) and the CNF. 0 when the record is unreadable.
+ */
+export function workEstimate(dir: string): number {
+  try {
+    const j = JSON.parse(readFileSync(path.join(dir, FILES.certificate), "utf8")) as { proof?: { uncompressedBytes?: unknown }; cnf?: { clauses?: unknown } };
+    const bytes = typeof j.proof?.uncompressedBytes === "number" ? j.proof.uncompressedBytes : 0;
+    const clauses = typeof j.cnf?.clauses === "number" ? j.cnf.clauses : 0;
+    return bytes + 40 * clauses;
+  } catch {
+    return 0;
+  }
+}
+
 /** The child's entry module and the Node options it needs (tsx when running from the TypeScript sources). */
 function childCommand(): { file: string; execArgv: string[] } {
   const here = fileURLToPath(import.meta.url);
@@ -143,6 +160,8 @@ export function auditDirs(dirs: readonly string[], opts: BulkOptions, report: (e
   const limit = opts.timeLimit ?? null;
   const grace = opts.graceSeconds ?? GRACE_SECONDS;
   const { file, execArgv } = childCommand();
+  // the longest audits first, so that no long one starts last while the other cores sit idle
+  const order = dirs.map((_, i) => i).sort((a, b) => workEstimate(dirs[b]) - workEstimate(dirs[a]) || a - b);
   let next = 0;
   let ids = 0;
   const slots = new Set<Slot>();
@@ -179,7 +198,7 @@ export function auditDirs(dirs: readonly string[], opts: BulkOptions, report: (e
         slots.delete(s);
         return finishIfDone();
       }
-      const index = next++;
+      const index = order[next++];
       const id = ++ids;
       s.job = { index, id, start: performance.now(), timer: null, timedOut: false };
       if (limit !== null) {

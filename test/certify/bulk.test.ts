@@ -4,7 +4,7 @@ import * as fs from "node:fs";
 import { tmpdir } from "node:os";
 import * as path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { auditCertificate, auditVerdict, auditMany, bulkExitCode, discoverCertificates, entryOf, stoppedEarly, type AuditReport, type BulkEntry } from "../../src/certify/index.js";
+import { auditCertificate, auditVerdict, auditMany, bulkExitCode, discoverCertificates, entryOf, stoppedEarly, workEstimate, type AuditReport, type BulkEntry } from "../../src/certify/index.js";
 
 const legacy = path.resolve(import.meta.dirname, "fixtures/legacy");
 const work = fs.mkdtempSync(path.join(tmpdir(), "plumbline-bulk-"));
@@ -72,6 +72,17 @@ describe("auditMany", () => {
     expect(v["team-b/tampered"].checks).toEqual(here.checks);
     // rejected outranks unreadable in the exit code
     expect(bulkExitCode(two)).toBe(1);
+  }, 60_000);
+
+  it("starts the largest audits first (by proof and CNF size); results stay in discovery order", async () => {
+    const dirs = discoverCertificates([tree]).dirs.filter((d) => !d.endsWith("broken"));
+    const est = Object.fromEntries(dirs.map((d) => [path.relative(tree, d), workEstimate(d)]));
+    expect(est["team-b/one-shot"]).toBeLessThan(est["team-a/harbour-01-forall-1"]);
+    expect(workEstimate(path.join(tree, "team-b/broken"))).toBe(0);
+    const seen: string[] = [];
+    const es = await auditMany(dirs, { jobs: 1, onEntry: (e) => seen.push(path.relative(tree, e.dir)) });
+    expect(seen).toEqual([...seen].sort((a, b) => est[b] - est[a]));
+    expect(es.map((e) => e.dir)).toEqual(dirs);
   }, 60_000);
 
   it("calls onEntry once per certificate with a running count", async () => {
