@@ -60,7 +60,7 @@ export function dependencyGraph(task: Task, vars: Variables, include: (a: Action
     if (w.length === 0) return;
     const r = readVariables(a, vars.varOfFact);
     for (const u of w) {
-      poll("analysis");
+      poll("analysis: dependency");
       for (const v of r) if (v !== u) sets[v].add(u);
       for (const v of w) if (v !== u) sets[v].add(u);
     }
@@ -85,7 +85,7 @@ export function withComponents(n: number, succ: number[][]): DependencyGraph {
     stack.push(root);
     onStack[root] = 1;
     while (call.length > 0) {
-      poll("analysis");
+      poll("analysis: dependency");
       const v = call[call.length - 1];
       if (edgePos[v] < succ[v].length) {
         const u = succ[v][edgePos[v]++];
@@ -135,7 +135,7 @@ export function withComponents(n: number, succ: number[][]): DependencyGraph {
   });
   const order: number[] = [];
   while (ready.size > 0) {
-    poll("analysis");
+    poll("analysis: dependency");
     const c = ready.pop();
     order.push(c);
     for (const d of cChildren[c]) if (--indeg[d] === 0) ready.push(d);

@@ -102,9 +102,15 @@ export function pairReachability(task: Task, opts: H2Options = {}): PairReachabi
     return true;
   };
 
-  for (const f of task.init) for (const g of task.init) set(f, g);
+  for (const f of task.init) {
+    poll("analysis: h2");
+    for (const g of task.init) set(f, g);
+  }
 
-  const certainDel: Uint32Array[] = task.actions.map((a) => certainDeletes(a, W));
+  const certainDel: Uint32Array[] = task.actions.map((a) => {
+    poll("analysis: h2");
+    return certainDeletes(a, W);
+  });
   const tmp = new Uint32Array(W);
   let processed = new Uint8Array(task.actions.length);
   let prevChanged = changed;
@@ -117,7 +123,7 @@ export function pairReachability(task: Task, opts: H2Options = {}): PairReachabi
     reachChanged = false;
     any = false;
     for (let ai = 0; ai < task.actions.length; ai++) {
-      poll("analysis");
+      poll("analysis: h2");
       const a = task.actions[ai];
       if (processed[ai] && !triggered(a, prevChanged, a.pre.length === 0 && prevReachChanged)) continue;
       if (!pairwise(a.pre, a.pre)) continue;
@@ -138,7 +144,7 @@ export function pairReachability(task: Task, opts: H2Options = {}): PairReachabi
       work += W * (a.pre.length + 1 + adds.length);
       for (const p of adds) for (const q of adds) set(p, q);
       for (const p of adds) {
-        poll("analysis");
+        poll("analysis: h2");
         const base = p * W;
         for (let w = 0; w < W; w++) {
           let fresh = tmp[w] & ~rows[base + w];

@@ -42,10 +42,11 @@ export function simplifyTask(task: Task, pairs: PairReachability): SimplifyResul
   let liveCond: boolean[][] = [];
   // monotone (always-true facts only grow), so this reaches its fixpoint within F rounds
   for (;;) {
-    poll("analysis");
-    live = task.actions.map(
-      (a) => !meets(a.pre, never) && !meets(a.preNeg, always) && !overlap(a.pre, a.preNeg) && together(a.pre, a.pre),
-    );
+    poll("analysis: simplify");
+    live = task.actions.map((a) => {
+      poll("analysis: simplify");
+      return !meets(a.pre, never) && !meets(a.preNeg, always) && !overlap(a.pre, a.preNeg) && together(a.pre, a.pre);
+    });
     liveCond = task.actions.map((a) =>
       a.cond.map(
         (ce) =>
@@ -100,7 +101,7 @@ export function simplifyTask(task: Task, pairs: PairReachability): SimplifyResul
   let nNever = 0;
   let nAlways = 0;
   for (let f = 0; f < F; f++) {
-    poll("analysis");
+    poll("analysis: simplify");
     if (never[f]) nNever++;
     if (always[f]) nAlways++;
   }

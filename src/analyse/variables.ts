@@ -61,7 +61,7 @@ export function findVariables(task: Task, pairs: PairReachability): Variables {
     const tmp = new Uint32Array(W);
     const degree = new Int32Array(F);
     for (let f = 0; f < F; f++) {
-      poll("analysis");
+      poll("analysis: variables");
       if (!pairs.reachable(f)) continue;
       nbrs(f, tmp);
       let d = 0;
@@ -75,7 +75,7 @@ export function findVariables(task: Task, pairs: PairReachability): Variables {
     const cand = new Uint32Array(W);
     const nb = new Uint32Array(W);
     for (const seed of order) {
-      poll("analysis");
+      poll("analysis: variables");
       if (covered[seed]) continue;
       const group = [seed];
       covered[seed] = 1;
@@ -83,7 +83,7 @@ export function findVariables(task: Task, pairs: PairReachability): Variables {
       nbrs(seed, cand);
       for (let w = 0; w < W; w++) cand[w] &= uncovered[w];
       for (;;) {
-        poll("analysis");
+        poll("analysis: variables");
         const members = bitsOf(cand);
         if (members.length === 0) break;
         let best = -1;
@@ -146,7 +146,7 @@ function exactlyOne(task: Task, facts: number[], varOfFact: Int32Array, id: numb
   const inGroup = (f: number) => varOfFact[f] === id;
   if (task.init.filter(inGroup).length !== 1) return false;
   for (const a of task.actions) {
-    poll("analysis");
+    poll("analysis: variables");
     const addsUncond = a.add.some(inGroup);
     if (a.del.some(inGroup) && !addsUncond) return false;
     for (const ce of a.cond) if (ce.del.some(inGroup) && !addsUncond && !ce.add.some(inGroup)) return false;

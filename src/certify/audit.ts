@@ -14,6 +14,7 @@ import { checkLandmarkCertificate, relaxedReachableWithout, type LandmarkRecord 
 import { PlumblineError } from "../util/errors.js";
 import { isLimitReached, withLimits, type LimitReached } from "../util/limits.js";
 import { AUDITABLE_FORMAT_VERSIONS, FILES, type CertificateJson } from "./format.js";
+import { checkInformational, type Recomputed } from "./informational.js";
 import { sha256 } from "./write.js";
 
 export interface AuditCheck {
@@ -209,7 +210,8 @@ function auditWith(c: Checks, t0: number, dir: string, opts: AuditOptions): Audi
   }
 
   // --- the plan ----------------------------------------------------------------------------
-  if (cert.claim.status === "optimal") auditPlan(c, dir, cert, model);
+  const seen: Recomputed = { task };
+  if (cert.claim.status === "optimal") auditPlan(c, dir, cert, model, seen);
 
   // --- the proof of the claim --------------------------------------------------------------
   if (how === "relaxed-unreachable") {
@@ -217,12 +219,15 @@ function auditWith(c: Checks, t0: number, dir: string, opts: AuditOptions): Audi
   } else if (how === "lower-bound") {
     auditLowerBound(c, dir, cert, task);
   } else {
-    auditHorizonUnsat(c, dir, cert, task, opts);
+    auditHorizonUnsat(c, dir, cert, task, opts, seen);
   }
+  // the fields no claim rests on: compared with what was recomputed, or named as not verified
+  const info = checkInformational(cert, seen);
+  c.check("informational", info.mismatches.length === 0, `${info.checked.length ? `checked ${info.checked.join(", ")}; ` : ""}not verified (informational only): ${info.unverified.join(", ")}`, `edited or wrong: ${info.mismatches.join("; ")}`);
   return report();
 }
 
-function auditPlan(c: Checks, dir: string, cert: CertificateJson, model: Model): void {
+function auditPlan(c: Checks, dir: string, cert: CertificateJson, model: Model, seen: Recomputed): void {
   const plan = cert.plan!;
   const bytes = readIn(dir, FILES.plan);
   if (!bytes) {
@@ -243,6 +248,8 @@ function auditPlan(c: Checks, dir: string, cert: CertificateJson, model: Model):
     c.skip("plan-cost", "the plan does not replay");
     return;
   }
+  seen.planText = bytes.toString("utf8");
+  seen.planCost = r.cost;
   c.check(
     "plan-cost",
     r.cost === plan.cost && r.length === plan.length,
@@ -312,7 +319,7 @@ function acceptedHorizon(c: Checks, H: number, winner: string, recordedRaw: unkn
   return null;
 }
 
-function auditHorizonUnsat(c: Checks, dir: string, cert: CertificateJson, task: Task, opts: AuditOptions): void {
+function auditHorizonUnsat(c: Checks, dir: string, cert: CertificateJson, task: Task, opts: AuditOptions, seen: Recomputed): void {
   const optimal = cert.claim.status === "optimal";
   const cost = optimal ? cert.plan!.cost : null;
   const hz = cert.horizon;
@@ -401,6 +408,7 @@ function auditHorizonUnsat(c: Checks, dir: string, cert: CertificateJson, task: 
   }
   const ud = firstDifference(units, enc.boundUnits, "boundUnits");
   c.check("bound-units", ud === null, `${units.length} bound literals as recorded`, `recorded bound literals differ: ${ud}`);
+  seen.cnf = { variables: formula.numVars, clauses: formula.numClauses + units.length };
   const hash = canonicalCnfSha256(formula, units);
   c.check("cnf-hash", hash === cert.cnf?.sha256, `rebuilt CNF (${formula.numVars} variables, ${formula.numClauses + units.length} clauses) has the recorded SHA-256`, `the rebuilt CNF has SHA-256 ${hash}, the certificate records ${cert.cnf?.sha256}`);
 
@@ -412,6 +420,7 @@ function auditHorizonUnsat(c: Checks, dir: string, cert: CertificateJson, task: 
     c.skip("proof-check", "no proof");
     return;
   }
+  seen.proofBytes = proofBytes.length;
   const phash = sha256(proofBytes);
   c.check("proof-hash", phash === pr.sha256, `${FILES.proof} matches its recorded SHA-256 (${proofBytes.length} bytes)`, `${FILES.proof} has SHA-256 ${phash}, the certificate records ${pr.sha256}`);
   const result = checkDrat(checkerCnf(formula, units), proofBytes, { deadline: opts.deadline, signal: opts.signal });

@@ -105,6 +105,11 @@ function replayRecorded(model: Model, planText: string, planFile: string): { val
   }
   if (r.valid) return { valid: true, cost: r.cost, failure: null };
   const er = r.error!;
+  if (er.kind === "name") {
+    // a step naming no action or object of the model (replay reports it as an invalid plan)
+    const detail = er.message.replace(/^.*?:\d+:\d+: /, "");
+    return { valid: false, cost: null, failure: { step: er.step, action: er.action, kind: "unknown-step", condition: detail, message: `step ${er.step}: ${detail}` } };
+  }
   return { valid: false, cost: null, failure: { step: er.step, action: er.action, kind: er.kind, condition: er.literal, message: er.message } };
 }
 

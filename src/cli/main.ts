@@ -32,7 +32,7 @@ function startWorker(data: unknown): Worker {
   return new Worker(boot, { eval: true, workerData: data, execArgv });
 }
 
-const worker = startWorker({ argv: process.argv.slice(2), flag: abortFlagBuffer() });
+let worker: Worker | null = null;
 let exitCode: number | null = null;
 let failure: Error | null = null;
 let signals = 0;
@@ -44,11 +44,13 @@ function onSignal(name: NodeJS.Signals): void {
     process.exit(name === "SIGINT" ? 130 : 143);
   }
   say(`\nplumbline: ${name === "SIGINT" ? "interrupted" : "terminated"}; finishing up and writing the best result so far (send it again to quit at once)\n`);
-  requestAbort();
-  worker.postMessage({ abort: name });
+  requestAbort(); // a worker not started yet sees the flag as soon as it starts
+  worker?.postMessage({ abort: name });
 }
 process.on("SIGINT", onSignal);
 process.on("SIGTERM", onSignal);
+
+worker = startWorker({ argv: process.argv.slice(2), flag: abortFlagBuffer() });
 
 worker.on("message", (m: { exitCode?: number }) => {
   if (typeof m?.exitCode === "number") exitCode = m.exitCode;

@@ -12,11 +12,11 @@ export function foldConstants(d: Draft): void {
   const init = new Uint8Array(n);
   for (const f of d.init) init[f] = 1;
   for (;;) {
-    poll("grounding");
+    poll("grounding: fold");
     const added = new Uint8Array(n);
     const deleted = new Uint8Array(n);
     for (const a of d.actions) {
-      poll("grounding");
+      poll("grounding: fold");
       for (const f of a.add) added[f] = 1;
       for (const f of a.del) deleted[f] = 1;
       for (const ce of a.cond) {
@@ -29,7 +29,7 @@ export function foldConstants(d: Draft): void {
     let removed = false;
     const kept: DraftAction[] = [];
     for (const a of d.actions) {
-      poll("grounding");
+      poll("grounding: fold");
       if (a.pre.some(isFalse) || a.preNeg.some(isTrue)) {
         removed = true;
         continue;
@@ -57,7 +57,7 @@ export function foldConstants(d: Draft): void {
       for (let f = 0; f < n; f++) if ((isTrue(f) || isFalse(f)) && !needed.has(f)) constant[f] = 1;
       const drop = (xs: number[]) => xs.filter((f) => !constant[f]);
       for (const a of d.actions) {
-        poll("grounding");
+        poll("grounding: fold");
         a.pre = drop(a.pre);
         a.preNeg = drop(a.preNeg);
         a.add = drop(a.add);
@@ -92,7 +92,7 @@ export function renumber(d: Draft, keep: Uint8Array): void {
   d.goal = m(d.goal);
   d.goalNeg = m(d.goalNeg);
   for (const a of d.actions) {
-    poll("grounding");
+    poll("grounding: fold");
     a.pre = m(a.pre);
     a.preNeg = m(a.preNeg);
     a.add = m(a.add);

@@ -113,7 +113,7 @@ export function instantiate(w: World, actions: readonly LAction[], r: Reached, c
     return ids;
   };
   for (const inst of r.instances) {
-    poll("grounding");
+    poll("grounding: instantiate");
     const a = actions[inst.action];
     const d = a.disjuncts[inst.disjunct];
     const b = inst.binding;

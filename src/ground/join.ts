@@ -208,7 +208,7 @@ export class Joiner {
     const after = plan.checks[i + 1];
     if (op.k === 1) {
       for (const x of this.domList[op.v]) {
-        poll("grounding");
+        poll("grounding: join");
         this.binding[op.v] = x;
         if (this.checksPass(after)) this.step(plan, i + 1, emit);
       }
@@ -231,7 +231,7 @@ export class Joiner {
     const count = bucket ? bucket.length : set.size;
     const tuples = set.tuples;
     outer: for (let j = 0; j < count; j++) {
-      poll("grounding");
+      poll("grounding: join");
       const tup = tuples[bucket ? bucket[j] : j];
       for (const [p, v] of op.free) {
         const x = tup[p];

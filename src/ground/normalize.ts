@@ -110,7 +110,7 @@ export class Normalizer {
         const parts: N[] = [];
         let count = 0;
         for (const tuple of this.tuples(f.vars, f.pos)) {
-          poll("grounding");
+          poll("grounding: normalize");
           if (++count > MAX_EXPANSION) throw this.limit("a universal quantifier", f.pos);
           const inner = new Map(env);
           f.vars.forEach((v, i) => inner.set(v.name, tuple[i]));
@@ -281,7 +281,7 @@ export function normalizeAction(w: World, a: ActionDecl, schema: number): LActio
   for (const s of scopes) {
     if (s.adds.length === 0 && s.dels.length === 0) continue;
     for (const cond of nz.dnf(mk("and", s.cond), a.pos)) {
-      poll("grounding");
+      poll("grounding: normalize");
       if (s.vars.length === 0 && cond.vars.length === 0 && cond.lits.length === 0 && cond.eqs.length === 0) {
         adds.push(...s.adds);
         dels.push(...s.dels);

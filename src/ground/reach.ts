@@ -113,7 +113,7 @@ export function reach(w: World, actions: readonly LAction[]): Reached {
   const seen = actions.map(() => new Set<string>());
   let current: Rule = rules[0];
   const emit = (): void => {
-    poll("grounding");
+    poll("grounding: reach");
     const r = current;
     const j = joiners[r.action];
     const b = j.binding;
@@ -143,7 +143,7 @@ export function reach(w: World, actions: readonly LAction[]): Reached {
     joiners[current.action].run(sp.plan, emit);
   }
   for (let qi = 0; qi < queue.length; qi++) {
-    poll("grounding");
+    poll("grounding: reach");
     const f = queue[qi];
     const pred = factPred[f];
     const args = factArgs[f];

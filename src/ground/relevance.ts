@@ -17,6 +17,7 @@ export function pruneIrrelevantMapped(task: Task): { task: Task; factMap: Int32A
   const n = task.facts.length;
   const touching: number[][] = Array.from({ length: n }, () => []);
   task.actions.forEach((a, i) => {
+    poll("grounding: relevance");
     const t = new Set<number>([...a.add, ...a.del]);
     for (const ce of a.cond) for (const f of [...ce.add, ...ce.del]) t.add(f);
     for (const f of t) touching[f].push(i);
@@ -33,7 +34,7 @@ export function pruneIrrelevantMapped(task: Task): { task: Task; factMap: Int32A
   for (const f of task.goal) mark(f);
   for (const f of task.goalNeg) mark(f);
   for (let qi = 0; qi < queue.length; qi++) {
-    poll("grounding");
+    poll("grounding: relevance");
     for (const ai of touching[queue[qi]]) {
       if (relAction[ai]) continue;
       relAction[ai] = 1;

@@ -2,6 +2,7 @@
 // every action onto an action, so it is an automorphism of the state graph; used to compute
 // exact eccentricities once per orbit instead of once per state.
 import type { Action, Task } from "../ground/task.js";
+import { poll } from "../util/limits.js";
 
 export interface Symmetry {
   /** Fact permutation: fact f ↦ perm[f]. */
@@ -54,6 +55,7 @@ export function objectSwaps(task: Task, maxPairs = 5000): Symmetry[] {
   let tried = 0;
   for (let i = 0; i < objects.length; i++) {
     for (let j = i + 1; j < objects.length; j++) {
+      poll("finding symmetries");
       const a = objects[i];
       const b = objects[j];
       if (profile.get(a) !== profile.get(b)) continue;
@@ -63,11 +65,13 @@ export function objectSwaps(task: Task, maxPairs = 5000): Symmetry[] {
       const perm = new Int32Array(task.facts.length);
       let ok = true;
       for (let f = 0; f < task.facts.length && ok; f++) {
+        poll("finding symmetries");
         const g = factIndex.get(rename(factTokens[f]));
         if (g === undefined) ok = false;
         else perm[f] = g;
       }
       for (let x = 0; x < task.actions.length && ok; x++) {
+        poll("finding symmetries");
         const y = actionIndex.get(rename(actionTokens[x]));
         if (y === undefined || actionKey(task.actions[x], (f) => perm[f]) !== actionKey(task.actions[y], (f) => f)) ok = false;
       }

@@ -73,6 +73,7 @@ class Run {
     if (this.best !== null && plan.cost >= this.best.cost) throw new InternalError(`${origin} returned a plan of cost ${plan.cost}, not cheaper than ${this.best.cost}`);
     if (plan.cost < this.lower) throw new InternalError(`${origin} returned a plan of cost ${plan.cost} below the proven lower bound ${this.lower}`);
     this.best = plan;
+    this.opts.onPlan?.(plan);
     if (this.timeToFirstPlan === null) this.timeToFirstPlan = this.budget.elapsed();
     this.event("plan", origin);
     this.progress.say(`plan of cost ${plan.cost} (${plan.length} actions) from ${origin}`);

@@ -3,7 +3,7 @@
 import * as fs from "node:fs";
 import { tmpdir } from "node:os";
 import * as path from "node:path";
-import { FileProofWriter, Solver, solveExternal, type CompactCnf } from "../sat/index.js";
+import { FileProofWriter, Solver, solveExternal } from "../sat/index.js";
 import type { Budget } from "./budget.js";
 import { checkerCnf, type Formula } from "./formula.js";
 
@@ -90,28 +90,6 @@ export function builtinSession(formula: Formula, proofPath: string | null): SatS
   };
 }
 
-function compactOf(formula: Formula, units: readonly number[]): CompactCnf {
-  let lits = new Int32Array(1 << 16);
-  let n = 0;
-  let count = 0;
-  const push = (x: number) => {
-    if (n === lits.length) {
-      const b = new Int32Array(lits.length * 2);
-      b.set(lits);
-      lits = b;
-    }
-    lits[n++] = x;
-  };
-  const add = (c: ArrayLike<number>) => {
-    for (let i = 0; i < c.length; i++) push(c[i]);
-    push(0);
-    count++;
-  };
-  formula.streamTo({ addClause: add });
-  for (const u of units) add([u]);
-  return { numVars: formula.numVars, numClauses: count, lits: lits.subarray(0, n) };
-}
-
 /**
  * An external DIMACS solver: each query is the whole formula plus the units as unit clauses.
  * A proof the solver writes counts only after `checker` (src/proof, passed in by the caller)
@@ -134,7 +112,15 @@ export function externalSession(formula: Formula, command: string, workDir: stri
       calls++;
       clear();
       if (budget.stop() !== null) return { status: "unknown" };
-      const cnf = compactOf(formula, units);
+      // the formula streams its clauses straight into the solver's input file: no copy per query
+      const cnf = {
+        numVars: formula.numVars,
+        numClauses: formula.numClauses + units.length,
+        streamTo(sink: { addClause(lits: ArrayLike<number>): unknown }) {
+          formula.streamTo(sink);
+          for (const u of units) sink.addClause([u]);
+        },
+      };
       const proofPath = path.join(workDir, `external-${++seq}.drat`);
       const left = budget.left();
       const r = await solveExternal(command, cnf, {

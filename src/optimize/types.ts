@@ -31,6 +31,8 @@ export interface OptimizeOptions {
   signal?: AbortSignal;
   /** Progress lines for a person watching (bound, horizon, size, conflicts, elapsed). */
   onProgress?: (line: string) => void;
+  /** Called with each new best plan as soon as it is validated (solve writes --plan here, so no plan is lost to a crash or a kill). */
+  onPlan?: (plan: CheckedPlan) => void;
   /** Minimum milliseconds between progress lines (default 2000). */
   progressIntervalMs?: number;
   /** Largest proof formula the optimizer builds, in clauses (default 30 million). */

@@ -10,7 +10,8 @@ export interface ReplayError {
   step: number;
   /** The failing step as written "(move a b)", or null for the goal. */
   action: string | null;
-  kind: "precondition" | "goal";
+  /** "name": the step names no action of the model (unknown action or object, wrong arity or type). */
+  kind: "precondition" | "goal" | "name";
   /** The failing literal (or smallest failing part), e.g. "(not (busy crane2))". */
   literal: string;
   message: string;
@@ -58,9 +59,22 @@ export interface ReplayOptions {
   trace?: boolean;
 }
 
-/** Replays `steps` from the initial state; throws PlumblineError only for bad input. */
+/**
+ * Replays `steps` from the initial state. A step that names no action of the model makes the plan
+ * invalid (a verdict, like a failing precondition): the plan file itself was readable.
+ */
 export function replayPlan(model: Model, steps: readonly PlanStep[], planFile = "plan", opts: ReplayOptions = {}): ReplayResult {
-  const decls = resolveSteps(model, steps, planFile);
+  const decls: ActionDecl[] = [];
+  for (let i = 0; i < steps.length; i++) {
+    try {
+      decls.push(resolveSteps(model, [steps[i]], planFile)[0]);
+    } catch (e) {
+      if (!(e instanceof PlumblineError)) throw e;
+      const r: ReplayResult = { valid: false, cost: 0, length: steps.length, error: { step: i + 1, action: stepText(steps[i]), kind: "name", literal: stepText(steps[i]), message: e.message } };
+      if (opts.trace) r.trace = [];
+      return r;
+    }
+  }
   const unit = !model.domain.hasActionCosts;
   let s: ReadonlySet<string> = initialState(model);
   let cost = 0;

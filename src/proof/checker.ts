@@ -108,6 +108,9 @@ export function checkSteps(cnf: CheckerCnf, proof: ProofSteps, opts: DratOptions
   };
   if (opts.lrat && mode !== "backward") throw new RangeError("LRAT output needs the backward mode");
   if (proof.error !== null) return finish({ valid: false, reason: `unreadable proof: ${proof.error}` });
+  // per-variable arrays are sized by the largest variable: refuse absurd ones instead of exhausting memory
+  const varLimit = Math.max(2 * cnf.numVars, 1 << 25);
+  if (proof.maxVar > varLimit) return finish({ valid: false, reason: `the proof uses variable ${proof.maxVar}, beyond the ${varLimit} this checker supports for a formula of ${cnf.numVars} variables` });
   // an explicit empty clause must be the last step
   for (let t = 0; t < proof.count; t++) {
     if (!proof.deletion[t] && proof.length[t] === 0 && t < proof.count - 1) {

@@ -2,6 +2,9 @@
 // one pass over the characters, with errors that name file:line:col.
 import { PlumblineError } from "../util/errors.js";
 
+/** The largest variable count a header may declare (per-variable arrays are sized by it). */
+const MAX_VARIABLES = 1 << 25;
+
 export interface CheckerCnf {
   numVars: number;
   clauses: ArrayLike<number>[];
@@ -53,6 +56,8 @@ export function readCnfForChecker(input: string | Uint8Array, file: string): Che
         if (!m) fail(i, `expected 'p cnf VARIABLES CLAUSES', found '${text.slice(i, Math.min(e, i + 40)).trim()}'`);
         numVars = Number((m as RegExpExecArray)[1]);
         declared = Number((m as RegExpExecArray)[2]);
+        // the checker sizes per-variable arrays by the header: an absurd count is bad input, not a crash
+        if (numVars > MAX_VARIABLES) fail(i, `the header declares ${(m as RegExpExecArray)[1]} variables; at most ${MAX_VARIABLES} are supported`);
       }
       i = e;
       continue;
@@ -71,6 +76,7 @@ export function readCnfForChecker(input: string | Uint8Array, file: string): Che
     }
     if (i === digits || (i < n && text.charCodeAt(i) > 32)) fail(at, `expected a literal or 0, found '${word(at)}'`);
     if (x > numVars) fail(at, `literal ${neg ? "-" : ""}${x} is out of range: the header declares ${numVars} variables`);
+    if (neg && x === 0) fail(at, "'-0' is not a literal: 0 ends a clause and takes no sign");
     if (x === 0) {
       clauses.push(Int32Array.from(current));
       current = [];

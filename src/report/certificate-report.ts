@@ -118,7 +118,7 @@ export function certificateReportHtml(v: CertificateView, audit: AuditView): str
     section(
       "Bound convergence",
       v.timeline.length
-        ? `<figure>${boundsChart(v.problemName, [{ configuration: "solve", timeline: v.timeline, end: Math.max(...v.timeline.map((p) => p.seconds)) }], typeof cost === "number" ? cost : null, { width: 720, height: 280 })}<figcaption>Solid: cost of the best plan known; dashed: the best proven lower bound. They meet where optimality was proven.</figcaption></figure>`
+        ? `<figure>${boundsChart(v.problemName, [{ configuration: "solve", timeline: v.timeline, end: Math.max(...v.timeline.map((p) => p.seconds)) }], typeof cost === "number" ? cost : null, { width: 720, height: 280 })}<figcaption>Solid: cost of the best plan known; dashed: the best proven lower bound. They meet where optimality was proven. Drawn from the certificate's timeline as the solver recorded it: audit does not verify the timeline (informational only); the verified claim is the audit's verdict above.</figcaption></figure>`
         : `<p class="note">The certificate records no timeline of bounds${typeof lb === "number" ? `; its lower bound is ${lb}` : ""}.</p>`,
       "bounds",
     ),

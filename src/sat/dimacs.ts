@@ -3,6 +3,12 @@
 import { PlumblineError } from "../util/errors.js";
 import { readBytes } from "../util/files.js";
 import type { Cnf, CompactCnf } from "./types.js";
+import { poll } from "../util/limits.js";
+
+/** The largest variable count a DIMACS header may declare (the solver sizes per-variable arrays by it). */
+export const MAX_DIMACS_VARIABLES = 1 << 25;
+/** The largest clause count a DIMACS header may declare. */
+export const MAX_DIMACS_CLAUSES = 2 ** 31 - 1;
 
 export interface DimacsWarnings {
   warnings: string[];
@@ -81,8 +87,12 @@ export function parseDimacsCompact(input: string | Uint8Array, file: string): Co
     fail(bytes, file, i, `expected 'cnf' in the header, found ${tokenAt(bytes, i)}`);
   }
   i += 3;
+  const varsAt = i;
   const numVars = readUint("the number of variables");
+  if (numVars > MAX_DIMACS_VARIABLES) fail(bytes, file, varsAt, `the header declares ${numVars} variables; at most ${MAX_DIMACS_VARIABLES} are supported`);
+  const clausesAt = i;
   const numClausesDeclared = readUint("the number of clauses");
+  if (numClausesDeclared > MAX_DIMACS_CLAUSES) fail(bytes, file, clausesAt, `the header declares ${numClausesDeclared} clauses; at most ${MAX_DIMACS_CLAUSES} are supported`);
   skipInline();
   if (i < n && bytes[i] !== 10) fail(bytes, file, i, `expected the end of the header line, found ${tokenAt(bytes, i)}`);
 
@@ -92,6 +102,7 @@ export function parseDimacsCompact(input: string | Uint8Array, file: string): Co
   let open = false;
   let lastLitOffset = -1;
   while (i < n) {
+    poll("reading the CNF");
     const b = bytes[i];
     if (isSpace(b)) {
       i++;
@@ -117,6 +128,7 @@ export function parseDimacsCompact(input: string | Uint8Array, file: string): Co
     }
     if (i === digits || (i < n && !isSpace(bytes[i]))) fail(bytes, file, start, `expected a literal (a non-zero integer) or 0, found ${tokenAt(bytes, start)}`);
     if (x > numVars) fail(bytes, file, start, `literal ${neg ? "-" : ""}${x} is out of range: the header declares ${numVars} variables`);
+    if (neg && x === 0) fail(bytes, file, start, "'-0' is not a literal: 0 ends a clause and takes no sign");
     if (m === lits.length) {
       const g = new Int32Array(lits.length * 2);
       g.set(lits);

@@ -5,7 +5,7 @@ import * as fs from "node:fs";
 import { tmpdir } from "node:os";
 import * as path from "node:path";
 import { PlumblineError } from "../util/errors.js";
-import { writeDimacs } from "./dimacs.js";
+import { asStream, firstFalsifiedClause, writeDimacsFile, type StreamedCnf } from "./dimacs-stream.js";
 import type { CompactCnf, Cnf, SolveStatus } from "./types.js";
 
 export interface ExternalOptions {
@@ -41,12 +41,18 @@ export function splitCommand(cmd: string): string[] {
  * `{cnf}` the CNF path is appended, and a requested proof path follows it (the usual convention
  * of proof-producing solvers). A missing command is a PlumblineError with code "external".
  */
-export async function solveExternal(cmd: string, cnf: Cnf | CompactCnf, opts: ExternalOptions = {}): Promise<ExternalResult> {
+export async function solveExternal(cmd: string, input: Cnf | CompactCnf | StreamedCnf, opts: ExternalOptions = {}): Promise<ExternalResult> {
+  const cnf = asStream(input);
   const words = splitCommand(cmd);
   if (words.length === 0) throw new PlumblineError("usage", "external SAT solver: empty command (expected external:CMD)");
   const dir = fs.mkdtempSync(path.join(opts.tmpDir ?? tmpdir(), "plumbline-ext-"));
   const cnfPath = path.join(dir, "input.cnf");
-  fs.writeFileSync(cnfPath, writeDimacs(cnf));
+  try {
+    writeDimacsFile(cnfPath, cnf);
+  } catch (e) {
+    fs.rmSync(dir, { recursive: true, force: true });
+    throw e;
+  }
   const wantsProofSlot = words.some((w) => w.includes("{proof}"));
   const proofPath = opts.proofPath ?? (wantsProofSlot ? path.join(dir, "proof.drat") : undefined);
   let args = words.slice(1).map((w) => w.replaceAll("{cnf}", cnfPath).replaceAll("{proof}", proofPath ?? ""));
@@ -68,7 +74,7 @@ export async function solveExternal(cmd: string, cnf: Cnf | CompactCnf, opts: Ex
     }
     const result: ExternalResult = { status: parsed.status, exitCode: run.code, seconds, command };
     if (parsed.status === "sat") {
-      const bad = firstUnsatisfiedClause(cnf, parsed.model);
+      const bad = firstFalsifiedClause(cnf, parsed.model);
       if (bad >= 0) throw new PlumblineError("external", `external SAT solver '${words[0]}' returned a model that falsifies clause ${bad + 1}`);
       result.model = parsed.model;
     }
@@ -137,23 +143,4 @@ export function parseSolverOutput(stdout: string, numVars: number): { status: So
     }
   }
   return { status, model };
-}
-
-function firstUnsatisfiedClause(cnf: Cnf | CompactCnf, model: Int8Array): number {
-  const sat = (l: number) => (l > 0 ? model[l] === 1 : model[-l] === -1);
-  if ("clauses" in cnf) {
-    for (let i = 0; i < cnf.clauses.length; i++) if (!cnf.clauses[i].some(sat)) return i;
-    return -1;
-  }
-  let idx = 0;
-  let ok = false;
-  for (let i = 0; i < cnf.lits.length; i++) {
-    const l = cnf.lits[i];
-    if (l === 0) {
-      if (!ok) return idx;
-      idx++;
-      ok = false;
-    } else if (!ok && sat(l)) ok = true;
-  }
-  return -1;
 }

@@ -19,6 +19,7 @@ export function relaxedReachableWithout(task: Task, removed: ReadonlySet<number>
     poll("checking landmarks");
     changed = false;
     task.actions.forEach((a, i) => {
+      poll("checking landmarks");
       if (removed.has(i) || !holds(a.pre)) return;
       const adds = [...a.add];
       for (const ce of a.cond) if (holds(ce.cond)) adds.push(...ce.add);

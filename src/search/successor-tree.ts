@@ -1,6 +1,7 @@
 // Applicable-action lookup without scanning every action: a decision tree over facts.
 // Each node tests one fact; actions needing it true, false, or not at all go to three children.
 import type { Task } from "../ground/task.js";
+import { poll } from "../util/limits.js";
 
 /**
  * Flattened tree. Node n tests fact nodeFact[n] and lists the actions whose conditions are
@@ -47,6 +48,7 @@ export class SuccessorTree {
       let v = Infinity;
       const rest: number[] = [];
       for (const a of acts) {
+        poll("building the successor generator");
         if (pos[a] === lits[a].length) imm[node].push(a);
         else {
           rest.push(a);
@@ -59,6 +61,7 @@ export class SuccessorTree {
       const f: number[] = [];
       const any: number[] = [];
       for (const a of rest) {
+        poll("building the successor generator");
         const lit = lits[a][pos[a]];
         if (lit >> 1 !== v) any.push(a);
         else {

@@ -134,5 +134,25 @@ let countdown = POLL_INTERVAL;
 export function poll(phase?: string): void {
   if (--countdown > 0) return;
   countdown = POLL_INTERVAL;
+  if (traceGaps) recordGap(phase ?? "?");
   checkLimits(phase);
+}
+
+// --- measuring the polls (bench:limits): the longest time between two real checks, per phase ---
+const traceGaps = process.env.PLUMBLINE_POLL_GAPS === "1";
+const gaps = new Map<string, number>();
+let lastCheckAt = 0;
+
+function recordGap(phase: string): void {
+  const now = performance.now();
+  if (lastCheckAt > 0) {
+    const g = now - lastCheckAt;
+    if (g > (gaps.get(phase) ?? 0)) gaps.set(phase, g);
+  }
+  lastCheckAt = now;
+}
+
+/** With PLUMBLINE_POLL_GAPS=1: the longest gap (ms) before a real check, per phase; otherwise empty. */
+export function pollGaps(): Map<string, number> {
+  return gaps;
 }

@@ -70,6 +70,7 @@ describe("audit of a horizon-unsat certificate", () => {
       "cnf-hash",
       "proof-hash",
       "proof-check",
+      "informational",
     ]);
   });
 
@@ -140,15 +141,41 @@ describe("audit of a horizon-unsat certificate", () => {
       fs.writeFileSync(proof(d), gz);
       j.proof.sha256 = sha256(gz);
     });
-    expect(corrupt.failed).toEqual(["proof-check"]);
+    expect(corrupt.failed).toEqual(["proof-check", "informational"]); // the recompressed proof's size differs from proof.bytes too
     const truncated = tampered((d, j) => {
       const raw = gunzipSync(fs.readFileSync(proof(d)));
       const gz = gzipSync(raw.subarray(0, Math.floor(raw.length / 3)));
       fs.writeFileSync(proof(d), gz);
       j.proof.sha256 = sha256(gz);
     });
-    expect(truncated.failed).toEqual(["proof-check"]);
+    expect(truncated.failed).toEqual(["proof-check", "informational"]);
     expect(tampered((d) => fs.rmSync(proof(d))).failed).toContain("proof-hash");
+  });
+
+  it("checks the informational fields it can recompute and names the others as not verified", () => {
+    for (const [field, edit] of [
+      ["cnf.variables", (j: any) => (j.cnf.variables += 1)],
+      ["cnf.clauses", (j: any) => (j.cnf.clauses -= 1)],
+      ["proof.bytes", (j: any) => (j.proof.bytes += 7)],
+      ["grounding.facts", (j: any) => (j.grounding.facts += 1)],
+      ["grounding.actions", (j: any) => (j.grounding.actions = 0)],
+    ] as const) {
+      const r = tampered((_d, j) => edit(j));
+      expect(r.failed, field).toEqual(["informational"]);
+    }
+    // fields no check can recompute: the certificate stays valid, and the audit says they are unverified
+    const dir = path.join(work, "informational");
+    fs.cpSync(original, dir, { recursive: true });
+    const file = path.join(dir, "certificate.json");
+    const j = JSON.parse(fs.readFileSync(file, "utf8"));
+    j.toolVersion = "9.9.9";
+    j.timeline = [];
+    fs.writeFileSync(file, JSON.stringify(j));
+    const r = auditCertificate(dir);
+    expect(r.valid).toBe(true);
+    const info = r.checks.find((c) => c.name === "informational")!;
+    expect(info.detail).toMatch(/checked grounding\.facts, grounding\.actions, cnf\.variables, cnf\.clauses, proof\.bytes/);
+    expect(info.detail).toMatch(/not verified \(informational only\): toolVersion, created, timeline/);
   });
 
   it("rejects a swapped problem file, and a changed domain file", () => {

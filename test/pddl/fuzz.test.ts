@@ -97,8 +97,10 @@ describe("front-end fuzzing", () => {
         try {
           const m = modelFromTexts(domain, "d.pddl", problem, "p.pddl");
           const task = ground(m);
-          ground(m, { relevance: true });
-          expect(task.facts.length).toBeGreaterThanOrEqual(0);
+          const pruned = ground(m, { relevance: true });
+          // a grounded task refers only to its own facts, and pruning never adds actions
+          for (const a of task.actions) for (const f of [...a.pre, ...a.preNeg, ...a.add, ...a.del]) expect(f).toBeLessThan(task.facts.length);
+          expect(pruned.actions.length).toBeLessThanOrEqual(task.actions.length);
           replayPlan(m, parsePlan(f.plan, "plan.txt"), "plan.txt");
         } catch (e) {
           only(e);

@@ -2,7 +2,7 @@
 // action, arity, unknown object, wrong type), and mapping plan steps to ground actions.
 import { describe, expect, it } from "vitest";
 import { ground } from "../../src/ground/index.js";
-import { actionNamesToIndices, formatPlan, parsePlan, replayPlan } from "../../src/plan/index.js";
+import { actionNamesToIndices, formatPlan, parsePlan, replayPlan, resolveSteps } from "../../src/plan/index.js";
 import { replayGround } from "../support/reference.js";
 import { fixture, fixtureModel } from "../fixtures/frontend/problems.js";
 import { expectPlumblineError, marked } from "../pddl/marker.js";
@@ -50,7 +50,7 @@ describe("plan files", () => {
   }
 });
 
-describe("replay input errors name the plan file's line:col", () => {
+describe("steps that name no action of the model: invalid plans, with the plan file's line:col", () => {
   const CASES: Array<[string, string, RegExp]> = [
     ["unknown action", "(load c1 truck1 main-quay)\n(«lift c1 truck1)", /unknown action 'lift' in plan step \(lift c1 truck1\)/],
     ["wrong arity", "«(drive truck1 depot1)", /action 'drive' takes 3 arguments, found 2 in \(drive truck1 depot1\)/],
@@ -61,13 +61,22 @@ describe("replay input errors name the plan file's line:col", () => {
   for (const [label, src, message] of CASES) {
     it(label, () => {
       const m = marked(src);
-      expectPlumblineError(() => replayPlan(quay(), parsePlan(m.text, "yard.plan"), "yard.plan"), { code: "semantic", message, file: "yard.plan", line: m.line, col: m.col });
+      const steps = parsePlan(m.text, "yard.plan");
+      expectPlumblineError(() => resolveSteps(quay(), steps, "yard.plan"), { code: "semantic", message, file: "yard.plan", line: m.line, col: m.col });
+      // replay: a verdict (invalid at that step), not an error
+      const r = replayPlan(quay(), steps, "yard.plan");
+      expect(r.valid).toBe(false);
+      expect(r.error).toMatchObject({ kind: "name", step: m.line });
+      expect(r.error!.message).toMatch(message);
+      expect(r.error!.message).toContain(`yard.plan:${m.line}:${m.col}:`);
     });
   }
 
-  it("bad input is refused even after a failing step (the whole plan is checked first)", () => {
+  it("names are checked for the whole plan before any step is replayed", () => {
     const m = marked("(inspect depot1)\n(«fly c1)");
-    expectPlumblineError(() => replayPlan(quay(), parsePlan(m.text, "yard.plan"), "yard.plan"), { code: "semantic", message: /unknown action 'fly'/, file: "yard.plan", line: 2, col: 2 });
+    const r = replayPlan(quay(), parsePlan(m.text, "yard.plan"), "yard.plan");
+    expect(r.error).toMatchObject({ kind: "name", step: 2 });
+    expect(r.error!.message).toMatch(/yard\.plan:2:2: unknown action 'fly'/);
   });
 });
 

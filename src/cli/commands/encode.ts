@@ -4,11 +4,12 @@ import * as fs from "node:fs";
 import type { Command } from "commander";
 import { prepareTask } from "../../analyse/index.js";
 import { groundFiles } from "../../ground/index.js";
-import { boundSettings, buildFormula, costSetting, DEFAULT_ENCODING, formulaId, OPTIMIZE_GROUNDING, resolveEncoding, specFor, writeCanonicalDimacs } from "../../optimize/index.js";
+import { boundSettings, buildFormula, costSetting, DEFAULT_ENCODING, estimateFormula, formulaId, OPTIMIZE_GROUNDING, resolveEncoding, specFor, writeCanonicalDimacs } from "../../optimize/index.js";
 import { PlumblineError } from "../../util/errors.js";
 import { tempNameFor } from "../../util/files.js";
 import { withCommonOptions, type CliContext } from "../context.js";
 import { checkOutputs } from "../output-paths.js";
+import { deadlineFrom } from "../options.js";
 
 interface EncodeCliOptions {
   json?: boolean;
@@ -19,12 +20,21 @@ interface EncodeCliOptions {
   encoding?: string;
   output?: string;
   plain?: boolean;
+  timeLimit?: string;
 }
 
-function wholeNumber(name: string, v: string | undefined, min: number): number | undefined {
+/** Largest --steps accepted before grounding (the formula's size is checked after). */
+const MAX_STEPS = 100_000;
+/** Largest --cost-below accepted (the unary cost counter keeps one entry per cost value). */
+const MAX_COST_BELOW = 10_000_000;
+/** Largest formula written, as the optimizer builds (clauses, estimated before building). */
+const MAX_CLAUSES = 30_000_000;
+
+function wholeNumber(name: string, v: string | undefined, min: number, max: number): number | undefined {
   if (v === undefined) return undefined;
   const x = Number(v);
   if (!Number.isSafeInteger(x) || x < min) throw new PlumblineError("usage", `${name} expects a whole number ≥ ${min}, found '${v}'`);
+  if (x > max) throw new PlumblineError("usage", `${name} ${v} is above the limit of ${max.toLocaleString("en")}`);
   return x;
 }
 
@@ -48,11 +58,13 @@ export function registerEncode(program: Command, ctx: CliContext): void {
           "(as a certificate records it; forall-1+cost-adder-1+empty-steps-last-1 is what solve built before cost-unary-1 and reach-1 existed)",
       )
       .option("--plain", "leave out the optional parts (reach-1 pruning, empty-steps-last-1 ordering): step encoding and cost encoding only")
-      .option("-o, --output <file>", "write the CNF to this file (default: stdout)"),
+      .option("-o, --output <file>", "write the CNF to this file (default: stdout)")
+      .option("--time-limit <seconds>", "stop after this many seconds (exit 3; no file is written)"),
   ).action((domain: string, problem: string, opts: EncodeCliOptions) => {
     ctx.configure(opts);
-    const steps = wholeNumber("--steps", opts.steps, 0)!;
-    const below = wholeNumber("--cost-below", opts.costBelow, 1);
+    const steps = wholeNumber("--steps", opts.steps, 0, MAX_STEPS)!;
+    const below = wholeNumber("--cost-below", opts.costBelow, 1, MAX_COST_BELOW);
+    deadlineFrom(opts.timeLimit);
     checkOutputs([opts.output !== undefined ? { flag: "--output", path: opts.output, kind: "file" } : null], [domain, problem]);
     const { task } = groundFiles(domain, problem, OPTIMIZE_GROUNDING);
     const prepared = prepareTask(task);
@@ -63,6 +75,10 @@ export function registerEncode(program: Command, ctx: CliContext): void {
       ...boundSettings(below ?? Infinity),
       mutexGroups: prepared.variables.variables.filter((v) => v.facts.length > 1).map((v) => [...v.facts]),
     });
+    const est = estimateFormula(prepared.task, spec);
+    if (est.clauses > MAX_CLAUSES) {
+      throw new PlumblineError("usage", `--steps ${steps}: the formula would have about ${Math.round(est.clauses).toLocaleString("en")} clauses, above the limit of ${MAX_CLAUSES.toLocaleString("en")} (choose fewer steps)`);
+    }
     const f = buildFormula(prepared.task, spec);
     const units = f.boundUnits(below === undefined ? Infinity : below - 1);
     const setting = costSetting(spec);

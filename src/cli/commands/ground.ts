@@ -3,6 +3,7 @@
 import type { Command } from "commander";
 import { groundFiles, groundStats } from "../../ground/index.js";
 import { withCommonOptions, type CliContext } from "../context.js";
+import { deadlineFrom } from "../options.js";
 
 export function registerGround(program: Command, ctx: CliContext): void {
   withCommonOptions(
@@ -11,9 +12,11 @@ export function registerGround(program: Command, ctx: CliContext): void {
       .description("ground a PDDL model and print its size: facts, actions, zero-cost actions, conditional effects, seconds")
       .argument("<domain>", "PDDL domain file")
       .argument("<problem>", "PDDL problem file")
-      .option("--relevance", "also prune actions and facts that cannot matter for the goal (backward relevance)"),
-  ).action((domain: string, problem: string, opts: { json?: boolean; quiet?: boolean; verbose?: boolean; relevance?: boolean }) => {
+      .option("--relevance", "also prune actions and facts that cannot matter for the goal (backward relevance)")
+      .option("--time-limit <seconds>", "stop after this many seconds (exit 3)"),
+  ).action((domain: string, problem: string, opts: { json?: boolean; quiet?: boolean; verbose?: boolean; relevance?: boolean; timeLimit?: string }) => {
     ctx.configure(opts);
+    deadlineFrom(opts.timeLimit);
     const { task, seconds } = groundFiles(domain, problem, { relevance: !!opts.relevance });
     const st = groundStats(task, Number(seconds.toFixed(3)));
     ctx.result({ ...st, domain: task.domainName, problem: task.problemName, costModel: task.costModel, relevance: !!opts.relevance, goalFacts: task.goal.length + task.goalNeg.length });

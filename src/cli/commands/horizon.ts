@@ -31,7 +31,7 @@ export function registerHorizon(program: Command, ctx: CliContext): void {
       .argument("<domain>", "PDDL domain file")
       .argument("<problem>", "PDDL problem file")
       .option("--upper-bound <C>", "cost of a known plan: bound plans cheaper than C (a whole number; 'inf' bounds plan existence)")
-      .option("--time-limit <seconds>", "time allowed for the first-plan search when --upper-bound is not given")
+      .option("--time-limit <seconds>", "stop after this many seconds (exit 3); the first-plan search, when --upper-bound is not given, gets at most half of it")
       .option("--no-relevance", "do not prune actions and facts irrelevant to the goal before bounding")
       .option("--max-projection-states <n>", `states explored per projection before using domain sizes (default ${HORIZON_DEFAULTS.maxProjectionStates})`)
       .option("--max-explicit-states <n>", `reachable states explored for the explicit method (default ${HORIZON_DEFAULTS.maxExplicitStates})`)
@@ -57,7 +57,7 @@ export function registerHorizon(program: Command, ctx: CliContext): void {
     let source = "--upper-bound";
     let firstPlan: { status: string; cost: number | null; length: number | null } | null = null;
     if (upper === null) {
-      const r = gbfs(task, { deadline, signal: ctx.signal });
+      const r = gbfs(task, { deadline: deadline === undefined ? undefined : Date.now() + (deadline - Date.now()) / 2, signal: ctx.signal });
       firstPlan = { status: r.status, cost: r.cost, length: r.plan ? r.plan.length : null };
       if (r.status === "solved") {
         upper = r.cost!;

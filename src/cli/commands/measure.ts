@@ -3,7 +3,7 @@
 import type { Command } from "commander";
 import { groundFiles } from "../../ground/index.js";
 import { DEFAULT_MAX_STATES, measureTask, type Measure } from "../../measure/index.js";
-import { positiveOption } from "../options.js";
+import { deadlineFrom, positiveOption } from "../options.js";
 import { withCommonOptions, type CliContext } from "../context.js";
 
 interface MeasureCliOptions {
@@ -12,6 +12,7 @@ interface MeasureCliOptions {
   verbose?: boolean;
   maxStates?: string;
   maxSearch?: string;
+  timeLimit?: string;
 }
 
 function show(m: Measure): string {
@@ -30,11 +31,13 @@ export function registerMeasure(program: Command, ctx: CliContext): void {
       .argument("<domain>", "PDDL domain file")
       .argument("<problem>", "PDDL problem file")
       .option("--max-states <n>", `largest reachable state space to explore (default ${DEFAULT_MAX_STATES})`)
-      .option("--max-search <n>", "run extensions allowed for each exhaustive search (recurrence, sublist, subset); past it, bounds are reported (default 2000000)"),
+      .option("--max-search <n>", "run extensions allowed for each exhaustive search (recurrence, sublist, subset); past it, bounds are reported (default 2000000)")
+      .option("--time-limit <seconds>", "stop after this many seconds (exit 3)"),
   ).action((domain: string, problem: string, opts: MeasureCliOptions) => {
     ctx.configure(opts);
     const maxStates = positiveOption("--max-states", opts.maxStates, DEFAULT_MAX_STATES);
     const maxSearch = positiveOption("--max-search", opts.maxSearch, 2_000_000);
+    deadlineFrom(opts.timeLimit);
     const { task, seconds } = groundFiles(domain, problem);
     ctx.note(`grounded ${task.facts.length} facts, ${task.actions.length} actions in ${seconds.toFixed(2)} s; exploring up to ${maxStates} states`);
     const r = measureTask(task, { maxStates, maxPathNodes: maxSearch, sublist: { maxNodes: maxSearch } });

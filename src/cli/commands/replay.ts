@@ -5,6 +5,7 @@ import { loadModel } from "../../pddl/index.js";
 import { parsePlan, replayPlan } from "../../plan/index.js";
 import { readText } from "../../util/files.js";
 import { withCommonOptions, type CliContext } from "../context.js";
+import { deadlineFrom } from "../options.js";
 
 export function registerReplay(program: Command, ctx: CliContext): void {
   withCommonOptions(
@@ -14,9 +15,11 @@ export function registerReplay(program: Command, ctx: CliContext): void {
       .argument("<domain>", "PDDL domain file")
       .argument("<problem>", "PDDL problem file")
       .argument("<plan>", "plan file: one (action object …) per line, ';' comments")
-      .option("--trace", "also list every step with its cost"),
-  ).action((domain: string, problem: string, planPath: string, opts: { json?: boolean; quiet?: boolean; verbose?: boolean; trace?: boolean }) => {
+      .option("--trace", "also list every step with its cost")
+      .option("--time-limit <seconds>", "stop after this many seconds (exit 3)"),
+  ).action((domain: string, problem: string, planPath: string, opts: { json?: boolean; quiet?: boolean; verbose?: boolean; trace?: boolean; timeLimit?: string }) => {
     ctx.configure(opts);
+    deadlineFrom(opts.timeLimit);
     const model = loadModel(domain, problem);
     const steps = parsePlan(readText(planPath), planPath);
     const r = replayPlan(model, steps, planPath, { trace: !!opts.trace });

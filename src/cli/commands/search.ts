@@ -32,7 +32,7 @@ export function registerSearch(program: Command, ctx: CliContext): void {
       .command("search")
       .description(
         "find a plan by explicit-state search: A* (optimal) by default, or greedy best-first (--greedy) for a quick first plan.\n" +
-          "Exit 0 plan found, 1 proven unsolvable, 2 bad input, 3 limit reached.",
+          "Exit 0 plan found or proven unsolvable, 2 bad input, 3 limit reached.",
       )
       .argument("<domain>", "PDDL domain file")
       .argument("<problem>", "PDDL problem file")
@@ -75,7 +75,7 @@ export function registerSearch(program: Command, ctx: CliContext): void {
       ? gbfs(task, { ...limits, heuristic })
       : astar(task, { ...limits, heuristic: heuristic as "landmark-cut" | "max" | "blind" });
     const status = r.status === "solved" ? (greedy ? "feasible" : "optimal") : r.status === "unsolvable" ? "unsolvable" : "unknown";
-    ctx.exitCode = status === "unsolvable" ? 1 : status === "unknown" ? 3 : 0;
+    ctx.exitCode = status === "unknown" ? 3 : 0; // a plan or proven unsolvability is an answer (README: exit codes)
     const names = r.plan ? planNames(task, r.plan) : null;
     if (r.plan && opts.plan) {
       const comment = `cost = ${r.cost} (${status}, found by ${greedy ? "greedy best-first search" : "A*"} with ${heuristic})`;

@@ -78,6 +78,8 @@ export function registerSolve(program: Command, ctx: CliContext): void {
       memoryLimitMb,
       signal: ctx.signal,
       onProgress: (line) => ctx.note(line),
+      // each better plan replaces the file at once (atomically): a later crash or kill loses nothing
+      onPlan: opts.plan !== undefined ? (p) => writeFileAtomic(opts.plan as string, p.text) : undefined,
       proofChecker: dratChecker,
     });
     try {
