@@ -15,6 +15,7 @@ import { PlumblineError } from "../util/errors.js";
 import { isLimitReached, withLimits, type LimitReached } from "../util/limits.js";
 import { AUDITABLE_FORMAT_VERSIONS, FILES, type CertificateJson } from "./format.js";
 import { checkInformational, type Recomputed } from "./informational.js";
+import { rederive } from "./rederive.js";
 import { sha256 } from "./write.js";
 
 export interface AuditCheck {
@@ -221,6 +222,14 @@ function auditWith(c: Checks, t0: number, dir: string, opts: AuditOptions): Audi
   } else {
     auditHorizonUnsat(c, dir, cert, task, opts, seen);
   }
+  // a second derivation sharing no code with the horizon methods (arithmetic, exact search on small tasks)
+  const again = rederive(task, isObj(cert.horizon) ? cert.horizon : null, seen.acceptedHorizon ?? null, cert.claim.status === "optimal" && isObj(cert.plan) ? cert.plan.cost : null);
+  c.check(
+    "second-derivation",
+    again.problems.length === 0,
+    `${again.checked.join("; ") || "nothing to re-derive"}${again.skipped.length ? `; not re-derived: ${again.skipped.join("; ")}` : ""}`,
+    again.problems.join("; "),
+  );
   // the fields no claim rests on: compared with what was recomputed, or named as not verified
   const info = checkInformational(cert, seen);
   c.check("informational", info.mismatches.length === 0, `${info.checked.length ? `checked ${info.checked.join(", ")}; ` : ""}not verified (informational only): ${info.unverified.join(", ")}`, `edited or wrong: ${info.mismatches.join("; ")}`);
@@ -351,6 +360,7 @@ function auditHorizonUnsat(c: Checks, dir: string, cert: CertificateJson, task: 
   }
   const H = acceptedHorizon(c, recomputed.horizon, recomputed.winner, hz.horizon, diff);
   if (H === null) return;
+  seen.acceptedHorizon = H;
 
   // the formula, from trusted values only: recomputed horizon and mutex groups, bound cost − 1
   let prepared: PreparedTask;

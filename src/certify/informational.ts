@@ -14,6 +14,8 @@ export interface Recomputed {
   /** Size of the plan as replayed, and the plan file's text. */
   planText?: string;
   planCost?: number;
+  /** The horizon the formula was rebuilt with. */
+  acceptedHorizon?: number;
 }
 
 export interface InformationalResult {

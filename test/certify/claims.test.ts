@@ -61,7 +61,7 @@ describe("lower-bound certificates", () => {
     expect(reference?.cost).toBe(7);
     const a = auditCertificate(dir);
     expect(a.valid).toBe(true);
-    expect(a.checks.map((c) => c.name)).toEqual(["format", "input-hashes", "ground", "plan-hash", "plan-replay", "plan-cost", "landmarks-hash", "landmark-check", "lower-bound-equals-cost", "informational"]);
+    expect(a.checks.map((c) => c.name)).toEqual(["format", "input-hashes", "ground", "plan-hash", "plan-replay", "plan-cost", "landmarks-hash", "landmark-check", "lower-bound-equals-cost", "second-derivation", "informational"]);
     expect(edit(dir, (d) => fs.appendFileSync(path.join(d, "landmarks.json"), " "))).toContain("landmarks-hash");
     // a landmark that is not one (its action is not needed), with the hash updated
     expect(
@@ -94,7 +94,7 @@ describe("unsolvability certificates", () => {
         fs.writeFileSync(path.join(d, "problem.pddl"), p);
         j.inputs.problem.sha256 = sha256(p);
       }),
-    ).toEqual(["relaxed-unreachable", "informational"]); // the recorded grounding counts no longer match either
+    ).toEqual(["relaxed-unreachable", "second-derivation", "informational"]); // the plain search finds a plan; the recorded grounding counts no longer match either
   });
 
   it("horizon-unsat: relaxed-reachable but unreachable (a one-shot resource), proven by SAT at the reachability threshold", async () => {

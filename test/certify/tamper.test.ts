@@ -70,6 +70,7 @@ describe("audit of a horizon-unsat certificate", () => {
       "cnf-hash",
       "proof-hash",
       "proof-check",
+      "second-derivation",
       "informational",
     ]);
   });
