@@ -99,13 +99,13 @@ describe("plumbline compare", () => {
     expect(j.optimum.lowerBound).toBeLessThanOrEqual(5);
   });
 
-  it("a plan naming an unknown object is bad input (exit 2, file:line:col)", async () => {
+  it("a plan naming an unknown object is invalid (exit 1, file:line:col)", async () => {
     const bad = join(tmp, "bad.plan");
     const { writeFileSync } = await import("node:fs");
     writeFileSync(bad, "(hitch b9 west)\n");
     const r = await cli(["compare", D, P1, bad]);
-    expect(r.code).toBe(2);
-    expect(r.stderr).toMatch(/bad\.plan:1:\d+/);
+    expect(r.code).toBe(1);
+    expect(r.stdout).toMatch(/verdict: invalid — .*bad\.plan:1:\d+/);
     expect(readFileSync(bad, "utf8")).toContain("b9");
   });
 });
