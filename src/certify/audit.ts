@@ -2,18 +2,17 @@
 // re-grounds, replays the plan, recomputes the horizon and the CNF, and checks the proof.
 import * as fs from "node:fs";
 import * as path from "node:path";
-import { prepareTask, type PreparedTask } from "../analyse/index.js";
-import { checkParts, COST_ENCODINGS, STEP_ENCODINGS, type CostEncodingId, type PartId, type StepEncodingId } from "../encode/index.js";
+import { checkParts, COST_ENCODINGS, provesAtAnyHorizon, STEP_ENCODINGS, type CostEncodingId, type PartId, type PartParams, type StepEncodingId } from "../encode/index.js";
 import { ground, type Task } from "../ground/index.js";
-import { computeHorizon, horizonReportJson } from "../horizon/index.js";
-import { boundSettings, buildFormula, canonicalCnfSha256, checkerCnf, costSetting, formulaId, type FormulaSpec } from "../optimize/index.js";
+import { horizonReportJson } from "../horizon/index.js";
+import { boundSettings, canonicalCnfSha256, checkerCnf, costSetting, formulaId, planningPipeline, type FormulaSpec, type PlanningPipeline } from "../optimize/index.js";
 import { modelFromTexts, type Model } from "../pddl/index.js";
 import { parsePlan, replayPlan } from "../plan/index.js";
 import { checkDrat } from "../proof/index.js";
 import { checkLandmarkCertificate, relaxedReachableWithout, type LandmarkRecord } from "../search/index.js";
 import { PlumblineError } from "../util/errors.js";
 import { isLimitReached, withLimits, type LimitReached } from "../util/limits.js";
-import { AUDITABLE_FORMAT_VERSIONS, FILES, type CertificateJson } from "./format.js";
+import { AUDITABLE_FORMAT_VERSIONS, FILES, FORMAT_VERSION, type CertificateJson } from "./format.js";
 import { checkInformational, type Recomputed } from "./informational.js";
 import { rederive } from "./rederive.js";
 import { sha256 } from "./write.js";
@@ -122,7 +121,9 @@ export function readCertificateJson(dir: string): CertificateJson {
   return v as unknown as CertificateJson;
 }
 
-const CLAIMS: Record<string, string[]> = { optimal: ["horizon-unsat", "lower-bound"], unsolvable: ["horizon-unsat", "relaxed-unreachable"] };
+const CLAIMS: Record<string, string[]> = { optimal: ["horizon-unsat", "suffix-unsat", "lower-bound"], unsolvable: ["horizon-unsat", "relaxed-unreachable"] };
+/** Claims a format version can hold (suffix-unsat came with version 2). */
+const CLAIMS_SINCE: Record<string, number> = { "suffix-unsat": 2 };
 
 /** A limit stops a check by throwing; checks that catch errors must let it through. */
 function passLimit(e: unknown): void {
@@ -171,14 +172,18 @@ function auditWith(c: Checks, t0: number, dir: string, opts: AuditOptions): Audi
   // --- the record itself -------------------------------------------------------------------
   const versionOk = AUDITABLE_FORMAT_VERSIONS.includes(cert.formatVersion);
   const claimOk =
-    versionOk && isObj(cert.claim) && CLAIMS[cert.claim.status]?.includes(cert.claim.how) === true && (cert.claim.status === "optimal") === isObj(cert.plan);
+    versionOk &&
+    isObj(cert.claim) &&
+    CLAIMS[cert.claim.status]?.includes(cert.claim.how) === true &&
+    (CLAIMS_SINCE[cert.claim.how] ?? 1) <= cert.formatVersion &&
+    (cert.claim.status === "optimal") === isObj(cert.plan);
   c.check(
     "format",
     claimOk,
-    `format version ${cert.formatVersion}, claim ${cert.claim?.status} by ${cert.claim?.how}`,
+    `format version ${cert.formatVersion}${cert.formatVersion === FORMAT_VERSION ? "" : ` (an earlier version; current ${FORMAT_VERSION})`}, claim ${cert.claim?.status} by ${cert.claim?.how}`,
     !versionOk
       ? `format version ${JSON.stringify(cert.formatVersion)} is not one this version reads (${AUDITABLE_FORMAT_VERSIONS.join(", ")})`
-      : `the claim ${JSON.stringify(cert.claim)} is not one of: optimal by horizon-unsat or lower-bound (with a plan), unsolvable by horizon-unsat or relaxed-unreachable (without one)`,
+      : `the claim ${JSON.stringify(cert.claim)} is not one of: optimal by horizon-unsat, suffix-unsat (format 2 on) or lower-bound (with a plan), unsolvable by horizon-unsat or relaxed-unreachable (without one)`,
   );
   if (!claimOk) return report();
   const how = cert.claim.how;
@@ -219,6 +224,8 @@ function auditWith(c: Checks, t0: number, dir: string, opts: AuditOptions): Audi
     c.check("relaxed-unreachable", !relaxedReachableWithout(task, new Set()), "the goal is unreachable even ignoring deletes", "the goal is reachable ignoring deletes: the claim is not proven this way");
   } else if (how === "lower-bound") {
     auditLowerBound(c, dir, cert, task);
+  } else if (how === "suffix-unsat") {
+    auditSuffixUnsat(c, dir, cert, task, opts, seen);
   } else {
     auditHorizonUnsat(c, dir, cert, task, opts, seen);
   }
@@ -351,7 +358,20 @@ function auditHorizonUnsat(c: Checks, dir: string, cert: CertificateJson, task: 
     c.skip("horizon-derivation", "no valid upper cost");
     return;
   }
-  const recomputed = computeHorizon(task, upper);
+  let pipe: PlanningPipeline;
+  try {
+    pipe = planningPipeline(task);
+  } catch (e) {
+    passLimit(e);
+    c.fail("horizon-derivation", `analysis failed: ${(e as Error).message}`);
+    return;
+  }
+  const limits = horizonLimitsOf(cert);
+  if (typeof limits === "string") {
+    c.fail("horizon-derivation", limits);
+    return;
+  }
+  const recomputed = pipe.horizon(upper, limits);
   const fresh = horizonReportJson(recomputed);
   const diff = firstDifference(fresh, hz);
   if (!Number.isSafeInteger(recomputed.horizon)) {
@@ -363,15 +383,40 @@ function auditHorizonUnsat(c: Checks, dir: string, cert: CertificateJson, task: 
   seen.acceptedHorizon = H;
 
   // the formula, from trusted values only: recomputed horizon and mutex groups, bound cost − 1
-  let prepared: PreparedTask;
-  try {
-    prepared = prepareTask(task);
-  } catch (e) {
-    passLimit(e);
-    c.fail("encoding", `analysis failed: ${(e as Error).message}`);
-    return;
+  auditFormula(c, dir, cert, pipe, { steps: H, upper, settingFrom: "upper-cost", bound: optimal ? cost! - 1 : null }, opts, seen);
+}
+
+/** The recorded horizon limits (format 2 on), checked; a string says what is wrong. */
+function horizonLimitsOf(cert: CertificateJson): { maxOptimalStates?: number; maxExplicitStates?: number; maxProjectionStates?: number } | string {
+  const raw = (cert as { horizonLimits?: unknown }).horizonLimits;
+  if (raw === undefined) return {};
+  if (!isObj(raw) || cert.formatVersion < 2) return `horizonLimits ${JSON.stringify(raw)?.slice(0, 80)} is not a limits record of format 2`;
+  const out: Record<string, number> = {};
+  const caps: Record<string, [number, number]> = { maxOptimalStates: [0, 10_000_000], maxExplicitStates: [1, 10_000_000], maxProjectionStates: [1, 10_000_000] };
+  for (const [k, v] of Object.entries(raw)) {
+    const cap = caps[k];
+    if (!cap) return `horizonLimits: unknown limit ${k}`;
+    if (typeof v !== "number" || !Number.isSafeInteger(v) || v < cap[0] || v > cap[1]) return `horizonLimits.${k} ${JSON.stringify(v)} is not a whole number in ${cap[0]}..${cap[1]}`;
+    out[k] = v;
   }
-  const groups = prepared.variables.variables.filter((v) => v.facts.length > 1).map((v) => [...v.facts]);
+  return out;
+}
+
+interface FormulaTerms {
+  steps: number;
+  /** The upper cost the bound setting is recomputed from (threshold claims). */
+  upper: number;
+  /** "upper-cost": the setting must equal the one for `upper`; "recorded": any value under which "cost ≤ bound" is expressible. */
+  settingFrom: "upper-cost" | "recorded";
+  bound: number | null;
+}
+
+/** Rebuilds the recorded formula from trusted values, compares its hash, checks the proof. */
+function auditFormula(c: Checks, dir: string, cert: CertificateJson, pipe: PlanningPipeline, terms: FormulaTerms, opts: AuditOptions, seen: Recomputed): void {
+  const enc = cert.encoding!;
+  const H = terms.steps;
+  const upper = terms.upper;
+  const groups = pipe.mutexGroups.map((g) => [...g]);
   const step = enc.step as StepEncodingId;
   const costId = enc.cost as CostEncodingId;
   let parts: PartId[] | null = null;
@@ -382,14 +427,17 @@ function auditHorizonUnsat(c: Checks, dir: string, cert: CertificateJson, task: 
   }
   const stepOk = STEP_ENCODINGS.includes(step) && COST_ENCODINGS.includes(costId);
   const partsOk = parts !== null && Array.isArray(enc.extensions);
-  const spec: FormulaSpec = { encoding: step, cost: costId, steps: H, ...boundSettings(upper), mutexGroups: groups, parts: parts ?? [] };
-  const bound = optimal ? cost! - 1 : null;
+  const params: Record<string, unknown> = isObj(enc.params) ? enc.params : {};
+  const recordedSetting = (name: "costBits" | "costCap") => (typeof params[name] === "number" && Number.isSafeInteger(params[name]) && (params[name] as number) >= 0 ? (params[name] as number) : -1);
+  const settings = terms.settingFrom === "upper-cost" ? boundSettings(upper) : { costBits: recordedSetting("costBits"), costCap: recordedSetting("costCap") };
+  const partParams = isObj(enc.partParams) ? (enc.partParams as PartParams) : undefined;
+  const spec: FormulaSpec = { encoding: step, cost: costId, steps: H, ...settings, mutexGroups: groups, parts: parts ?? [], ...(partParams ? { partParams } : {}) };
+  const bound = terms.bound;
   const problems: string[] = [];
   if (!stepOk) problems.push(`unknown step or cost encoding ${JSON.stringify(enc.step)} / ${JSON.stringify(enc.cost)}`);
   if (!partsOk) problems.push(`unknown, repeated or misordered parts ${JSON.stringify(enc.extensions)}`);
   if (stepOk && partsOk && enc.id !== formulaId(spec)) problems.push(`id ${JSON.stringify(enc.id)} is not ${formulaId(spec)}`);
-  const params: Record<string, unknown> = isObj(enc.params) ? enc.params : {};
-  // the bound setting of the recorded cost encoding, recomputed from the upper cost
+  // the bound setting of the recorded cost encoding, recomputed from the upper cost (or as recorded)
   const { name: setting, value: settingValue } = costSetting(spec);
   if (params.steps !== H) problems.push(`steps ${JSON.stringify(params.steps)} is not the accepted horizon ${H}`);
   if (params[setting] !== settingValue) problems.push(`${setting} ${JSON.stringify(params[setting])} is not ${settingValue}`);
@@ -409,7 +457,7 @@ function auditHorizonUnsat(c: Checks, dir: string, cert: CertificateJson, task: 
   let formula;
   let units: number[];
   try {
-    formula = buildFormula(prepared.task, spec);
+    formula = pipe.formula(spec);
     units = formula.boundUnits(bound ?? Infinity);
   } catch (e) {
     passLimit(e);
@@ -431,6 +479,7 @@ function auditHorizonUnsat(c: Checks, dir: string, cert: CertificateJson, task: 
     return;
   }
   seen.proofBytes = proofBytes.length;
+  seen.proofBytes = proofBytes.length;
   const phash = sha256(proofBytes);
   c.check("proof-hash", phash === pr.sha256, `${FILES.proof} matches its recorded SHA-256 (${proofBytes.length} bytes)`, `${FILES.proof} has SHA-256 ${phash}, the certificate records ${pr.sha256}`);
   const result = checkDrat(checkerCnf(formula, units), proofBytes, { deadline: opts.deadline, signal: opts.signal });
@@ -439,5 +488,41 @@ function auditHorizonUnsat(c: Checks, dir: string, cert: CertificateJson, task: 
     return;
   }
   const why = result.failedLemma ? `lemma ${result.failedLemma.index} fails` : (result.reason ?? "rejected");
-  c.check("proof-check", result.valid, `DRAT proof valid: the CNF is unsatisfiable (${bound === null ? "no plan at all" : `no plan of cost ≤ ${bound}`} within ${H} steps)`, `the DRAT proof is rejected: ${why}${result.reason && result.failedLemma ? ` (${result.reason})` : ""}`);
+  const scope = provesAtAnyHorizon(spec.parts) ? `with ${H} real steps and a relaxed suffix, so at any length` : `within ${H} steps`;
+  c.check("proof-check", result.valid, `DRAT proof valid: the CNF is unsatisfiable (${bound === null ? "no plan at all" : `no plan of cost ≤ ${bound}`} ${scope})`, `the DRAT proof is rejected: ${why}${result.reason && result.failedLemma ? ` (${result.reason})` : ""}`);
+}
+
+/** Largest number of real steps a suffix-unsat certificate may ask the auditor to unroll. */
+const MAX_SUFFIX_STEPS = 100_000;
+
+/**
+ * suffix-unsat: no horizon to recompute — the refutation of "h real steps, then a relaxed
+ * suffix, cost ≤ cost − 1" proves "no plan of cost ≤ cost − 1" at any h (encodings/
+ * relaxed-suffix-1.md, the lemma), and so do its state pairs. The formula must contain the part.
+ */
+function auditSuffixUnsat(c: Checks, dir: string, cert: CertificateJson, task: Task, opts: AuditOptions, seen: Recomputed): void {
+  const enc = cert.encoding;
+  const cost = cert.plan!.cost;
+  const stepsRaw = isObj(enc) && isObj(enc.params) ? enc.params.steps : undefined;
+  const parts = isObj(enc) && Array.isArray(enc.extensions) ? (enc.extensions as string[]) : [];
+  const partOk = parts.includes("relaxed-suffix-1");
+  const stepsOk = typeof stepsRaw === "number" && Number.isSafeInteger(stepsRaw) && stepsRaw >= 0 && stepsRaw <= MAX_SUFFIX_STEPS;
+  if (
+    !c.check(
+      "suffix-terms",
+      isObj(enc) && partOk && stepsOk,
+      `the formula has ${stepsRaw} real steps and the part relaxed-suffix-1: its refutation holds at any plan length, no completeness threshold needed`,
+      !isObj(enc) ? "the certificate has no encoding record" : !partOk ? `a suffix-unsat claim needs the part relaxed-suffix-1; the formula's parts are ${JSON.stringify(parts)}` : `steps ${JSON.stringify(stepsRaw)} is not a whole number in 0..${MAX_SUFFIX_STEPS}`,
+    )
+  )
+    return;
+  let pipe: PlanningPipeline;
+  try {
+    pipe = planningPipeline(task);
+  } catch (e) {
+    passLimit(e);
+    c.fail("encoding", `analysis failed: ${(e as Error).message}`);
+    return;
+  }
+  auditFormula(c, dir, cert, pipe, { steps: stepsRaw as number, upper: Infinity, settingFrom: "recorded", bound: cost - 1 }, opts, seen);
 }

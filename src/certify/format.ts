@@ -1,14 +1,17 @@
 // The certificate's layout (DESIGN "Certificates"): file names, the certificate.json shape
 // and its version — shared by the writer and the auditor so that they cannot drift apart.
 
-/** The version this code writes. */
-export const FORMAT_VERSION = 1;
+/**
+ * The version this code writes. 2: claim "suffix-unsat" (relaxed-suffix-1 formulas),
+ * `encoding.partParams`, `thresholdAvoided`, `horizonLimits`.
+ */
+export const FORMAT_VERSION = 2;
 /**
  * Every version the audit reads: the current one and every earlier one (DESIGN "Audit and older
  * certificates"). Bumping FORMAT_VERSION means adding it here and keeping a certificate of the
  * previous version under test/certify/fixtures/legacy (test/certify/legacy.test.ts checks both).
  */
-export const AUDITABLE_FORMAT_VERSIONS: readonly number[] = [1];
+export const AUDITABLE_FORMAT_VERSIONS: readonly number[] = [1, 2];
 export const CERTIFICATE_KIND = "plumbline-certificate";
 
 export const FILES = {
@@ -37,13 +40,23 @@ export interface CertificateJson {
   toolVersion: string;
   created: string;
   inputs: { domain: FileRecord & { name: string }; problem: FileRecord & { name: string } };
-  claim: { status: "optimal" | "unsolvable"; how: "horizon-unsat" | "lower-bound" | "relaxed-unreachable" };
+  claim: { status: "optimal" | "unsolvable"; how: "horizon-unsat" | "suffix-unsat" | "lower-bound" | "relaxed-unreachable" };
   plan: (FileRecord & { cost: number; length: number }) | null;
   grounding: { relevance: boolean; facts: number; actions: number };
   reduction: { facts: number; actions: number; variables: number };
   /** horizon-unsat only: the horizon report (every method's derivation) for `upperCost`. */
   horizon: Record<string, unknown> | null;
-  /** horizon-unsat only. */
+  /**
+   * Limits of the horizon methods when the run did not use the defaults (format 2 on; absent
+   * otherwise): the audit recomputes the horizon with them.
+   */
+  horizonLimits?: { maxOptimalStates?: number; maxExplicitStates?: number; maxProjectionStates?: number };
+  /**
+   * suffix-unsat only, informational (not used by the audit): the completeness threshold for
+   * the claimed cost that the relaxed-suffix proof made unnecessary.
+   */
+  thresholdAvoided?: { upperCost: number; horizon: number | string; method: string } | null;
+  /** horizon-unsat and suffix-unsat. */
   encoding: {
     id: string;
     step: string;
@@ -52,6 +65,8 @@ export interface CertificateJson {
     extensions: string[];
     /** costBits for cost-adder-1, costCap for cost-unary-1. */
     params: { steps: number; costBits?: number; costCap?: number; mutexGroups: number[][] };
+    /** Parameters of parts that take them (relaxed-suffix-1: { pairs }); absent when none. */
+    partParams?: Record<string, unknown>;
     /** The final query: "plan cost ≤ bound" (null: any plan at all). */
     bound: number | null;
     boundUnits: number[];

@@ -48,6 +48,7 @@ export async function writeCertificate(dir: string, m: CertificateMaterial): Pro
   const { model, task, prepared, claim } = m;
   if (claim.status === "optimal" && m.plan === null) throw new Error("certify: an optimality certificate needs a plan");
   if (claim.how === "horizon-unsat" && (!m.formula || !m.proof || !m.horizon)) throw new Error("certify: a horizon-unsat certificate needs a formula, a horizon and a proof");
+  if (claim.how === "suffix-unsat" && (!m.formula || !m.proof)) throw new Error("certify: a suffix-unsat certificate needs a formula and a proof");
   const json: CertificateJson = {
     formatVersion: FORMAT_VERSION,
     kind: CERTIFICATE_KIND,
@@ -70,10 +71,14 @@ export async function writeCertificate(dir: string, m: CertificateMaterial): Pro
     caution: CAUTION,
   };
   let landmarksText: string | null = null;
-  if (claim.how === "horizon-unsat") {
+  if (claim.how === "horizon-unsat" || claim.how === "suffix-unsat") {
     const f = m.formula!;
     const setting = costSetting(f.spec);
-    json.horizon = horizonReportJson(m.horizon!);
+    if (claim.how === "horizon-unsat") {
+      json.horizon = horizonReportJson(m.horizon!);
+      if (m.horizonLimits) json.horizonLimits = { ...m.horizonLimits };
+    }
+    else json.thresholdAvoided = m.horizon ? { upperCost: m.horizon.upperCost, horizon: Number.isFinite(m.horizon.horizon) ? m.horizon.horizon : m.horizon.horizonText, method: m.horizon.winner } : null;
     json.encoding = {
       id: formulaId(f.spec),
       step: f.spec.encoding,
@@ -81,6 +86,7 @@ export async function writeCertificate(dir: string, m: CertificateMaterial): Pro
       // the encoding's optional parts (the field kept its name from when they were optimizer extensions)
       extensions: [...f.spec.parts],
       params: { steps: f.spec.steps, [setting.name]: setting.value, mutexGroups: f.params.mutexGroups },
+      ...(f.params.partParams ? { partParams: JSON.parse(JSON.stringify(f.params.partParams)) as Record<string, unknown> } : {}),
       bound: m.bound,
       boundUnits: [...m.units],
     };

@@ -5,11 +5,15 @@ import type { CnfBuilder } from "./cnf.js";
 import type { Layout } from "./layout.js";
 import type { TaskInfo } from "./task-info.js";
 
-/** Unit clauses: the initial state (every fact, by id) and the goal (positive, then negative). */
-export function emitInitAndGoal(cnf: CnfBuilder, task: Task, L: Layout): void {
+/**
+ * Unit clauses: the initial state (every fact, by id) and the goal (positive, then negative) —
+ * the goal only when `goalAtEnd` (a part such as relaxed-suffix-1 may finish the plan instead).
+ */
+export function emitInitAndGoal(cnf: CnfBuilder, task: Task, L: Layout, goalAtEnd = true): void {
   const init = new Uint8Array(L.nF);
   for (const f of task.init) init[f] = 1;
   for (let f = 0; f < L.nF; f++) cnf.add1(init[f] ? L.fact(0, f) : -L.fact(0, f));
+  if (!goalAtEnd) return;
   for (const f of task.goal) cnf.add1(L.fact(L.steps, f));
   for (const f of task.goalNeg) cnf.add1(-L.fact(L.steps, f));
 }

@@ -3,11 +3,12 @@
 import type { Task } from "../ground/task.js";
 import { CnfBuilder } from "./cnf.js";
 import type { Possible } from "./cost-inputs.js";
-import { emitCostPart, unaryInputs } from "./cost-part.js";
+import { unaryInputs } from "./cost-part.js";
 import type { EncodeOptions } from "./encoding.js";
 import { checkParts, COST_ENCODINGS, type CostEncodingId } from "./ids.js";
 import { Layout } from "./layout.js";
 import { reachLayers } from "./reach.js";
+import { costEncodingRecord, partCostValues, partRecord } from "./registry.js";
 import { stepRules, type StepRules } from "./step-rules.js";
 import { taskInfo } from "./task-info.js";
 import { buildUnary } from "./unary.js";
@@ -24,6 +25,8 @@ interface Setting {
   rules: StepRules;
   L: Layout;
   possible: Possible | undefined;
+  /** Costs of the inputs the parts add (relaxed-suffix-1's actions). */
+  extraCosts: number[];
 }
 
 /** The step rules, layout and reach-1 layers of the formula `opts` describes (mutex groups as given). */
@@ -32,20 +35,24 @@ function setting(task: Task, opts: EncodeOptions): Setting {
   const T = opts.steps;
   const L = new Layout(info.nF, info.nA, T);
   const rules = stepRules(opts.encoding, task, info, (opts.mutexGroups ?? []).map((g) => [...g]));
+  const parts = checkParts(opts.parts);
+  const goalAtEnd = !parts.some((p) => partRecord(p).replacesGoal);
   let possible: Possible | undefined;
-  if (checkParts(opts.parts).includes("reach-1")) {
-    const r = reachLayers(task, info, T);
+  if (parts.includes("reach-1")) {
+    const r = reachLayers(task, info, T, goalAtEnd);
     possible = (s, a) => r.possible[s][a] === 1;
   }
-  return { task, rules, L, possible };
+  return { task, rules, L, possible, extraCosts: partCostValues(task, parts) };
 }
 
 /** A cost part built on a scratch CNF (inputs and circuit): its variables and clauses. */
 function builtSize(st: Setting, id: CostEncodingId, opts: EncodeOptions): CostPartSize {
   const cnf = new CnfBuilder();
   cnf.newVars(st.L.auxBase - 1, "base");
+  const extra = st.extraCosts.map((cost) => ({ lit: cnf.newVar("suffix-action"), cost }));
   const v0 = cnf.numVars;
-  emitCostPart(cnf, st.task, st.rules, st.L, { id, costBits: opts.costBits, costCap: opts.costCap }, st.possible, () => {});
+  const rec = costEncodingRecord(id);
+  rec.emit({ cnf, task: st.task, rules: st.rules, L: st.L, possible: st.possible, part: () => {}, extra }, rec.setting === "costBits" ? opts.costBits : opts.costCap);
   return { vars: cnf.numVars - v0, clauses: cnf.numClauses };
 }
 
@@ -57,6 +64,7 @@ const TOO_MANY = Symbol("too many clauses");
  */
 function unarySize(st: Setting, opts: EncodeOptions, limit: number): CostPartSize {
   const inputs = unaryInputs(st.task, st.rules, st.L, st.possible);
+  for (const cost of st.extraCosts) inputs.push({ values: [cost], lits: [0] });
   const cap = opts.costCap ?? inputs.reduce((m, x) => m + x.values[x.values.length - 1], 0);
   const n = { vars: 0, clauses: 0 };
   const sink = {

@@ -5,8 +5,8 @@ import { bitLength, buildAdder } from "./adder.js";
 import type { CnfBuilder } from "./cnf.js";
 import { comparatorAssumptions, emitComparator } from "./comparator.js";
 import type { Possible } from "./cost-inputs.js";
-import type { CostEncodingId } from "./ids.js";
 import type { Layout } from "./layout.js";
+import type { ExtraCostInput } from "./relaxed-suffix.js";
 import type { StepRules } from "./step-rules.js";
 import { buildUnary, unaryAssumptions, type UnaryInput } from "./unary.js";
 
@@ -42,35 +42,55 @@ export function unaryInputs(task: Task, rules: StepRules, L: Layout, possible?: 
   return out;
 }
 
-export interface CostOptions {
-  id: CostEncodingId;
-  costBits?: number;
-  costCap?: number;
+/** What both cost encodings are emitted from. */
+export interface CostEmitInput {
+  cnf: CnfBuilder;
+  task: Task;
+  rules: StepRules;
+  L: Layout;
+  possible: Possible | undefined;
+  part: (name: string) => void;
+  /** Parts that add cost (relaxed-suffix-1), counted after the step encoding's inputs. */
+  extra: readonly ExtraCostInput[];
 }
 
-export function emitCostPart(cnf: CnfBuilder, task: Task, rules: StepRules, L: Layout, o: CostOptions, possible: Possible | undefined, part: (name: string) => void): CostPart {
-  if (o.id === "cost-unary-1") {
-    const inputs = unaryInputs(task, rules, L, possible);
-    const maxSum = inputs.reduce((m, x) => m + x.values[x.values.length - 1], 0);
-    const cap = o.costCap ?? maxSum;
-    part("cost-inputs");
-    const r = buildUnary(cnf, inputs, cap);
-    part("unary");
-    return {
-      outputs: r.outputs,
-      maxSum: r.maxSum,
-      maxRepresentable: cap - 1,
-      assumptions: (B) => unaryAssumptions(r, B),
-      comment: `bound unary outputs=${r.outputs.join(",") || "-"}`,
-      setting: { name: "costCap", value: cap },
-      stats: { unaryLayers: r.layers, unaryInputs: inputs.length },
-    };
-  }
-  const costGroups = rules.costGroups(cnf, L, possible);
+/**
+ * cost-unary-1: the step encoding's unary inputs, then one input per extra literal in order;
+ * the counter saturates at `costCap` (default: the largest possible sum).
+ */
+export function emitUnaryCost(x: CostEmitInput, costCap: number | undefined): CostPart {
+  const { cnf, task, rules, L, possible, part } = x;
+  const inputs = unaryInputs(task, rules, L, possible);
+  for (const e of x.extra) inputs.push({ values: [e.cost], lits: [e.lit] });
+  const maxSum = inputs.reduce((m, i) => m + i.values[i.values.length - 1], 0);
+  const cap = costCap ?? maxSum;
+  part("cost-inputs");
+  const r = buildUnary(cnf, inputs, cap);
+  part("unary");
+  return {
+    outputs: r.outputs,
+    maxSum: r.maxSum,
+    maxRepresentable: cap - 1,
+    assumptions: (B) => unaryAssumptions(r, B),
+    comment: `bound unary outputs=${r.outputs.join(",") || "-"}`,
+    setting: { name: "costCap", value: cap },
+    stats: { unaryLayers: r.layers, unaryInputs: inputs.length },
+  };
+}
+
+/**
+ * cost-adder-1: the step encoding's groups, then one group per distinct extra cost (ascending)
+ * with its literals in order; a comparator on `costBits` bound bits (default: enough for the
+ * largest possible sum).
+ */
+export function emitAdderCost(x: CostEmitInput, costBits: number | undefined): CostPart {
+  const { cnf, L, possible, part } = x;
+  const costGroups = x.rules.costGroups(cnf, L, possible);
+  for (const c of [...new Set(x.extra.map((e) => e.cost))].sort((p, q) => p - q)) costGroups.push({ weight: c, lits: x.extra.filter((e) => e.cost === c).map((e) => e.lit) });
   part("cost-inputs");
   const adder = buildAdder(cnf, costGroups);
   part("adder");
-  const m = o.costBits ?? bitLength(adder.maxSum);
+  const m = costBits ?? bitLength(adder.maxSum);
   if (!Number.isInteger(m) || m < 0 || m > 52) throw new RangeError(`encode: costBits must be an integer in 0..52, got ${m}`);
   const cmp = emitComparator(cnf, adder.sum, m);
   part("comparator");

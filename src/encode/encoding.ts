@@ -4,14 +4,13 @@ import type { Task } from "../ground/task.js";
 import { atMostOne } from "./amo.js";
 import { CnfBuilder, type ClauseSink, type CompactClauses, type PlainCnf } from "./cnf.js";
 import { coreTemplates, emitInitAndGoal, emitStepCore } from "./core.js";
-import type { Possible } from "./cost-inputs.js";
-import { emitCostPart } from "./cost-part.js";
 import { toDimacs, writeDimacsChunks } from "./dimacs.js";
-import { emitEmptyStepsLast } from "./empty-steps-last.js";
-import { checkParts, COST_ENCODINGS, type CostEncodingId, type PartId } from "./ids.js";
+import { checkParts, type CostEncodingId, type PartId } from "./ids.js";
 import { Layout } from "./layout.js";
-import { emitReachUnits, reachLayers, type ReachMode } from "./reach.js";
-import { STEP_ENCODINGS, stepRules, type StepEncodingId } from "./step-rules.js";
+import type { ReachMode } from "./reach.js";
+import { costEncodingRecord, partRecord, stepEncodingRecord, type EmitContext, type PartParams } from "./registry.js";
+import { emitStatePair, type SuffixVars } from "./relaxed-suffix.js";
+import type { StepEncodingId } from "./step-rules.js";
 import { taskInfo } from "./task-info.js";
 
 /** The cost encoding of every CNF built before cost-unary-1 existed, and still the default. */
@@ -29,8 +28,10 @@ export interface EncodeOptions {
   costCap?: number;
   /** Fact-id groups known to be mutually exclusive in every reachable state (redundant AMOs). */
   mutexGroups?: readonly (readonly number[])[];
-  /** Optional parts, distinct and in canonical order (PARTS): reach-1, empty-steps-last-1. */
+  /** Optional parts, distinct and in canonical order (PARTS): reach-1, relaxed-suffix-1, empty-steps-last-1. */
   parts?: readonly PartId[];
+  /** Parameters of parts that take them (relaxed-suffix-1: state pairs made distinct). */
+  partParams?: PartParams;
   /** For measurements only: reach-1 without simplifying the other clauses (not a spec'd id). */
   reachMode?: ReachMode;
 }
@@ -48,6 +49,8 @@ export interface EncodingParams {
   mutexGroups: number[][];
   /** Present only when non-empty. */
   parts?: PartId[];
+  /** Present only for parts that take parameters. */
+  partParams?: PartParams;
 }
 
 /** Variable and clause counts, per part of the encoding. */
@@ -67,6 +70,7 @@ export interface EncodingStats {
 export interface Encoding {
   readonly params: EncodingParams;
   readonly cnf: CnfBuilder;
+  /** Current counts (they grow when state pairs are added). */
   readonly numVars: number;
   readonly numClauses: number;
   readonly stats: EncodingStats;
@@ -101,6 +105,13 @@ export interface Encoding {
   /** Deterministic DIMACS text (header comments name the parameters). */
   toDimacs(): string;
   writeDimacs(write: (chunk: string) => void): void;
+  /** relaxed-suffix-1's variables (null without the part). */
+  readonly suffix: SuffixVars | null;
+  /**
+   * relaxed-suffix-1: appends the clauses of state pair (t, t′) at the end of the CNF, exactly as
+   * a rebuild with the pair appended to the parameters would; returns the index of its first clause.
+   */
+  addStatePair(t: number, u: number): number;
 }
 
 function normaliseGroups(groups: readonly (readonly number[])[] | undefined, task: Task): number[][] {
@@ -117,12 +128,16 @@ function normaliseGroups(groups: readonly (readonly number[])[] | undefined, tas
 }
 
 export function encodePlanning(task: Task, opts: EncodeOptions): Encoding {
-  if (!STEP_ENCODINGS.includes(opts.encoding)) throw new RangeError(`encode: unknown encoding ${String(opts.encoding)}`);
+  const stepRec = stepEncodingRecord(opts.encoding);
   const costId = opts.cost ?? COST_ENCODING;
-  if (!COST_ENCODINGS.includes(costId)) throw new RangeError(`encode: unknown cost encoding ${String(costId)}`);
+  const costRec = costEncodingRecord(costId);
   const parts = checkParts(opts.parts);
   const T = opts.steps;
   if (!Number.isInteger(T) || T < 0) throw new RangeError(`encode: steps must be a non-negative integer, got ${T}`);
+  const partRecs = parts.map(partRecord);
+  const partParams: PartParams = {};
+  for (const r of partRecs) if (r.params) (partParams as Record<string, unknown>)[r.id] = r.params((opts.partParams as Record<string, unknown> | undefined)?.[r.id], T);
+  for (const k of Object.keys(opts.partParams ?? {})) if (!parts.includes(k as PartId) || !partRecord(k as PartId).params) throw new RangeError(`encode: parameters given for ${k}, which is not a part of this formula taking any`);
   const groups = normaliseGroups(opts.mutexGroups, task);
   const info = taskInfo(task);
   const L = new Layout(info.nF, info.nA, T);
@@ -137,26 +152,36 @@ export function encodePlanning(task: Task, opts: EncodeOptions): Encoding {
     varsByPart[name] = (varsByPart[name] ?? 0) + cnf.numVars - mark.v;
     mark = { c: cnf.numClauses, v: cnf.numVars };
   };
+  const goalAtEnd = !partRecs.some((r) => r.replacesGoal);
+  const ctx: EmitContext = {
+    task,
+    info,
+    L,
+    cnf,
+    groups,
+    parts,
+    params: partParams,
+    goalAtEnd,
+    reachMode: opts.reachMode ?? "simplify",
+    rules: null,
+    possible: undefined,
+    layers: null,
+    costInputs: [],
+    suffix: null,
+    stats: {},
+    part,
+  };
 
-  emitInitAndGoal(cnf, task, L);
+  emitInitAndGoal(cnf, task, L, goalAtEnd);
   part("init+goal");
-  let possible: Possible | undefined;
-  const extraStats: Record<string, number> = {};
-  if (parts.includes("reach-1")) {
-    const layers = reachLayers(task, info, T);
-    const fixed = emitReachUnits(cnf, task, L, layers);
-    possible = (s, a) => layers.possible[s][a] === 1;
-    if ((opts.reachMode ?? "simplify") === "simplify") cnf.simplifyWith(fixed);
-    extraStats.reachFixedFacts = layers.fixedFacts;
-    extraStats.reachFixedActions = layers.fixedActions;
-    part("reach");
-  }
+  for (const r of partRecs) r.start?.(ctx);
   const tpl = coreTemplates(task, info);
-  const rules = stepRules(opts.encoding, task, info, groups);
+  const rules = stepRec.rules(task, info, groups);
+  ctx.rules = rules;
   for (let s = 1; s <= T; s++) {
     emitStepCore(cnf, task, info, tpl, L, s);
     part("steps-core");
-    rules.emitStep(cnf, L, s, possible);
+    rules.emitStep(cnf, L, s, ctx.possible);
     part("step-rules");
   }
   const lits: number[] = [];
@@ -168,15 +193,16 @@ export function encodePlanning(task: Task, opts: EncodeOptions): Encoding {
     }
   }
   part("mutex");
-  const cost = emitCostPart(cnf, task, rules, L, { id: costId, costBits: opts.costBits, costCap: opts.costCap }, possible, part);
-  if (parts.includes("empty-steps-last-1")) {
-    emitEmptyStepsLast(cnf, L);
-    part("empty-steps-last");
-  }
+  for (const r of partRecs) r.beforeCost?.(ctx);
+  const costValue = costRec.setting === "costBits" ? opts.costBits : opts.costCap;
+  const cost = costRec.emit({ cnf, task, rules, L, possible: ctx.possible, part, extra: ctx.costInputs }, costValue);
+  for (const r of partRecs) r.afterCost?.(ctx);
   cnf.simplifyWith(null);
+  for (const r of partRecs) r.atEnd?.(ctx);
 
   const params: EncodingParams = { encoding: opts.encoding, cost: costId, steps: T, [cost.setting.name]: cost.setting.value, mutexGroups: groups };
   if (parts.length > 0) params.parts = parts;
+  if (Object.keys(partParams).length > 0) params.partParams = partParams;
   const stats: EncodingStats = {
     vars: cnf.numVars,
     clauses: cnf.numClauses,
@@ -188,24 +214,30 @@ export function encodePlanning(task: Task, opts: EncodeOptions): Encoding {
     fullAdders: 0,
     halfAdders: 0,
     ...cost.stats,
-    ...extraStats,
+    ...ctx.stats,
     ...rules.stats,
   };
   const id = [opts.encoding, costId, ...parts].join("+");
-  const comments = [
-    `plumbline ${id} steps=${T} ${cost.setting.name}=${cost.setting.value} mutexGroups=${groups.length}`,
+  const pairsText = () => (partParams["relaxed-suffix-1"] ? ` statePairs=${partParams["relaxed-suffix-1"].pairs.length}` : "");
+  const comments = () => [
+    `plumbline ${id} steps=${T} ${cost.setting.name}=${cost.setting.value} mutexGroups=${groups.length}${pairsText()}`,
     `facts=${info.nF} actions=${info.nA} fact-vars=1..${L.actBase - 1} action-vars=${L.actBase}..${L.auxBase - 1}`,
     cost.comment,
   ];
   return {
     params,
     cnf,
-    numVars: cnf.numVars,
-    numClauses: cnf.numClauses,
+    get numVars() {
+      return cnf.numVars;
+    },
+    get numClauses() {
+      return cnf.numClauses;
+    },
     stats,
     costSum: cost.outputs,
     maxSum: cost.maxSum,
     maxRepresentableCost: cost.maxRepresentable,
+    suffix: ctx.suffix,
     actionVar: (s, a) => {
       if (!(s >= 1 && s <= T && a >= 0 && a < info.nA)) throw new RangeError(`encode: no action variable for step ${s}, action ${a}`);
       return L.action(s, a);
@@ -237,7 +269,27 @@ export function encodePlanning(task: Task, opts: EncodeOptions): Encoding {
     toCnf: () => cnf.toCnf(),
     toCompact: () => cnf.toCompact(),
     streamTo: (sink) => cnf.streamTo(sink),
-    toDimacs: () => toDimacs(cnf, comments),
-    writeDimacs: (write) => writeDimacsChunks(cnf, comments, write),
+    toDimacs: () => toDimacs(cnf, comments()),
+    writeDimacs: (write) => writeDimacsChunks(cnf, comments(), write),
+    addStatePair(t, u) {
+      const sp = partParams["relaxed-suffix-1"];
+      if (!sp || !ctx.suffix) throw new RangeError("encode: state pairs need the part relaxed-suffix-1");
+      const [pair] = checkPairsAgainst(sp.pairs, t, u, T);
+      const first = cnf.numClauses;
+      emitStatePair(cnf, L, ctx.suffix, pair, ctx.layers);
+      sp.pairs.push(pair);
+      clausesByPart["distinct-states"] = (clausesByPart["distinct-states"] ?? 0) + cnf.numClauses - first;
+      stats.vars = cnf.numVars;
+      stats.clauses = cnf.numClauses;
+      stats.literals = cnf.numLiterals;
+      return first;
+    },
   };
+}
+
+/** (t, u) as a new pair for horizon T, not among `pairs` (RangeError otherwise). */
+function checkPairsAgainst(pairs: readonly (readonly [number, number])[], t: number, u: number, T: number): [[number, number]] {
+  if (!Number.isInteger(t) || !Number.isInteger(u) || t < 0 || u <= t || u > T) throw new RangeError(`encode: state pair [${t}, ${u}] is not 0 ≤ t < t' ≤ ${T}`);
+  if (pairs.some(([a, b]) => a === t && b === u)) throw new RangeError(`encode: state pair [${t}, ${u}] is already there`);
+  return [[t, u]];
 }

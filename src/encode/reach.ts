@@ -32,7 +32,7 @@ const sameBytes = (x: Uint8Array, y: Uint8Array) => x.length === y.length && x.e
  * Rel⁺(s−1) = Rel⁺(s) ∪ pre(a) ∪ C(a), Rel⁻(s−1) = Rel⁻(s) ∪ preNeg(a) ∪ C(a), over
  * a ∈ possible(s) (C(a): facts its effect conditions read, in both polarities).
  */
-export function reachLayers(task: Task, info: TaskInfo, T: number): ReachLayers {
+export function reachLayers(task: Task, info: TaskInfo, T: number, goalAtEnd = true): ReachLayers {
   const { nF, nA } = info;
   const mayTrue: Uint8Array[] = [];
   const mayFalse: Uint8Array[] = [];
@@ -76,6 +76,11 @@ export function reachLayers(task: Task, info: TaskInfo, T: number): ReachLayers 
 
   const possible: Uint8Array[] = new Array(T + 1);
   possible[0] = new Uint8Array(0);
+  if (!goalAtEnd) {
+    // a part finishes the plan after T (relaxed-suffix-1): no backward relevance, possible = fwd
+    for (let s = 1; s <= T; s++) possible[s] = fwd[s];
+    return withCounts(mayTrue, mayFalse, possible, nF, nA, T);
+  }
   let relPos = new Uint8Array(nF);
   let relNeg = new Uint8Array(nF);
   for (const f of task.goal) relPos[f] = 1;
@@ -100,7 +105,10 @@ export function reachLayers(task: Task, info: TaskInfo, T: number): ReachLayers 
     relPos = np;
     relNeg = nn;
   }
+  return withCounts(mayTrue, mayFalse, possible, nF, nA, T);
+}
 
+function withCounts(mayTrue: Uint8Array[], mayFalse: Uint8Array[], possible: Uint8Array[], nF: number, nA: number, T: number): ReachLayers {
   let fixedFacts = 0;
   let fixedActions = 0;
   for (let t = 1; t <= T; t++) for (let f = 0; f < nF; f++) if (!mayTrue[t][f] || !mayFalse[t][f]) fixedFacts++;
@@ -117,7 +125,7 @@ export type ReachMode = "simplify" | "units";
  * taken in step s — and returns the fixed values the later clauses are simplified by: these,
  * the initial state (t = 0) and the goal literals at T (where they do not contradict the layers).
  */
-export function emitReachUnits(cnf: CnfBuilder, task: Task, L: Layout, r: ReachLayers): Int8Array {
+export function emitReachUnits(cnf: CnfBuilder, task: Task, L: Layout, r: ReachLayers, goalAtEnd = true): Int8Array {
   const fixed = new Int8Array(L.auxBase);
   for (let f = 0; f < L.nF; f++) fixed[L.fact(0, f)] = r.mayTrue[0][f] ? 1 : -1;
   for (let t = 1; t <= L.steps; t++) {
@@ -144,7 +152,7 @@ export function emitReachUnits(cnf: CnfBuilder, task: Task, L: Layout, r: ReachL
     }
   }
   const T = L.steps;
-  if (T > 0) {
+  if (T > 0 && goalAtEnd) {
     for (const f of task.goal) if (fixed[L.fact(T, f)] === 0) fixed[L.fact(T, f)] = 1;
     for (const f of task.goalNeg) if (fixed[L.fact(T, f)] === 0) fixed[L.fact(T, f)] = -1;
   }

@@ -25,7 +25,7 @@ export interface ExplicitSpace {
 export interface BoundContext {
   prepared: PreparedTask;
   projection: ProjectionContext;
-  limits: Required<Omit<HorizonOptions, "relevance" | "h2">>;
+  limits: Required<Omit<HorizonOptions, "relevance" | "h2" | "prepared">>;
   fullGraph(): DependencyGraph;
   zeroGraph(): DependencyGraph;
   /** The explicit state space explored up to `cap` states (default: the option's limit). */
@@ -55,7 +55,8 @@ export function boundContext(task: Task, opts: HorizonOptions = {}): BoundContex
 }
 
 function newContext(task: Task, opts: HorizonOptions): BoundContext {
-  const prepared = prepareTask(task, { relevance: opts.relevance ?? true, h2: opts.h2 });
+  if (opts.prepared && opts.prepared.original !== task) throw new Error("horizon: the prepared task given is not an analysis of this task");
+  const prepared = opts.prepared ?? prepareTask(task, { relevance: opts.relevance ?? true, h2: opts.h2 });
   const limits = {
     maxProjectionStates: opts.maxProjectionStates ?? HORIZON_DEFAULTS.maxProjectionStates,
     projectionBudget: opts.projectionBudget ?? HORIZON_DEFAULTS.projectionBudget,

@@ -1,6 +1,6 @@
 // The records a horizon computation returns: one per method with its value and every number
 // that went into it (the derivation), plus the winner — what certificates and audits compare.
-import type { H2Options } from "../analyse/index.js";
+import type { H2Options, PreparedTask } from "../analyse/index.js";
 
 export interface MethodResult {
   /** "cost", "zero-cost", "compositional", "explicit-optimal" or "explicit". */
@@ -45,6 +45,11 @@ export interface HorizonOptions {
   /** States stored by the exact explicit search for the shortest optimal plan (default 300,000; 0 disables it). */
   maxOptimalStates?: number;
   h2?: H2Options;
+  /**
+   * The analysis of this very task with the same `relevance` and `h2` settings, when the caller
+   * already has it (one prepareTask per run; the planning pipeline passes it).
+   */
+  prepared?: PreparedTask;
 }
 
 export const HORIZON_DEFAULTS = {

@@ -12,7 +12,7 @@ export interface SizeEstimate {
 }
 
 function measure(task: Task, spec: FormulaSpec, steps: number): { vars: number; clauses: number; literals: number } {
-  const f = buildFormula(task, { ...spec, steps });
+  const f = buildFormula(task, { ...spec, steps, partParams: undefined });
   let literals = 0;
   f.streamTo({ addClause: (l) => (literals += l.length) });
   return { vars: f.numVars, clauses: f.numClauses, literals };

@@ -4,6 +4,8 @@ import { createHash } from "node:crypto";
 import {
   checkParts,
   COST_ENCODINGS,
+  costBitsFor,
+  costEncodingRecord,
   encodePlanning,
   STEP_ENCODINGS,
   type CostEncodingId,
@@ -11,6 +13,7 @@ import {
   type Encoding,
   type EncodingParams,
   type PartId,
+  type PartParams,
   type StepEncodingId,
 } from "../encode/index.js";
 import type { Task } from "../ground/task.js";
@@ -27,6 +30,8 @@ export interface FormulaSpec {
   mutexGroups: number[][];
   /** The encoding's optional parts (src/encode PARTS), in canonical order. */
   parts: PartId[];
+  /** Parameters of parts that take them (relaxed-suffix-1: the state pairs made distinct). */
+  partParams?: PartParams;
 }
 
 /** A clause sink (the SAT solver, a hash, a DIMACS writer, a checker's clause list). */
@@ -35,21 +40,32 @@ export interface Sink {
 }
 
 export interface Formula {
+  /** The spec; with relaxed-suffix-1 its state pairs grow as `addStatePair` is called. */
   readonly spec: FormulaSpec;
   readonly encoding: Encoding;
   /** The encoder's parameters (what `encodePlanning` reports). */
   readonly params: EncodingParams;
+  /** Current counts (they grow with state pairs). */
   readonly numVars: number;
   readonly numClauses: number;
   /** Sends every clause, in the encoder's order. */
   streamTo(sink: Sink): void;
+  /** Sends the clauses from index `first` on (those added since a count was taken). */
+  streamFrom(first: number, sink: Sink): void;
   /** Unit literals for "plan cost ≤ B" ([] when B is Infinity: plain reachability). */
   boundUnits(B: number): number[];
+  /**
+   * relaxed-suffix-1: forbids equal states at time points t < t′ (unless the goal holds at t) by
+   * clauses appended at the end; the spec records the pair, so a rebuild gives the same CNF.
+   * Returns the index of the first new clause.
+   */
+  addStatePair(t: number, u: number): number;
 }
 
-/** The bound setting a spec's cost encoding uses: costCap for cost-unary-1, costBits otherwise. */
+/** The bound setting a spec's cost encoding uses (its registry record names it). */
 export function costSetting(spec: Pick<FormulaSpec, "cost" | "costBits" | "costCap">): { name: "costBits" | "costCap"; value: number } {
-  return spec.cost === "cost-unary-1" ? { name: "costCap", value: spec.costCap } : { name: "costBits", value: spec.costBits };
+  const name = costEncodingRecord(spec.cost).setting;
+  return { name, value: spec[name] };
 }
 
 /** The encoder options of a spec: its cost encoding's bound setting only (see costSetting). */
@@ -62,6 +78,7 @@ export function encodeOptionsOf(spec: FormulaSpec): EncodeOptions {
     [setting.name]: setting.value,
     mutexGroups: spec.mutexGroups,
     parts: spec.parts,
+    ...(spec.partParams && Object.keys(spec.partParams).length > 0 ? { partParams: spec.partParams } : {}),
   };
 }
 
@@ -72,32 +89,38 @@ export function encodeOptionsOf(spec: FormulaSpec): EncodeOptions {
  */
 export function buildFormula(task: Task, spec: FormulaSpec): Formula {
   const encoding = encodePlanning(task, encodeOptionsOf(spec));
+  // the spec follows the encoder's normalised parameters (state pairs are copied, then grow)
+  const own: FormulaSpec = { ...spec, parts: [...spec.parts] };
+  if (encoding.params.partParams) own.partParams = encoding.params.partParams;
+  else delete own.partParams;
   return {
-    spec,
+    spec: own,
     encoding,
     params: encoding.params,
-    numVars: encoding.numVars,
-    numClauses: encoding.numClauses,
+    get numVars() {
+      return encoding.numVars;
+    },
+    get numClauses() {
+      return encoding.numClauses;
+    },
     streamTo: (sink) => encoding.streamTo(sink),
+    streamFrom(first, sink) {
+      for (let i = first; i < encoding.cnf.numClauses; i++) sink.addClause(encoding.cnf.clause(i));
+    },
     boundUnits(B) {
       if (B === Number.POSITIVE_INFINITY) return [];
       return encoding.boundAssumptions(B);
     },
+    addStatePair: (t, u) => encoding.addStatePair(t, u),
   };
 }
 
 /** The bound settings for formulas asked "cost ≤ B" for every B < upper (Infinity: no bound). */
 export function boundSettings(upper: number): { costBits: number; costCap: number } {
-  return { costBits: costBitsFor(upper), costCap: Number.isFinite(upper) ? upper : 0 };
+  return { costBits: costEncodingRecord("cost-adder-1").settingFor(upper), costCap: costEncodingRecord("cost-unary-1").settingFor(upper) };
 }
 
-/** Number of bound bits needed to ask "cost ≤ B" for every B < upper (at least 1). */
-export function costBitsFor(upper: number): number {
-  if (!Number.isFinite(upper)) return 0;
-  let n = 0;
-  for (let x = Math.max(1, upper - 1); x > 0; x = Math.floor(x / 2)) n++;
-  return n;
-}
+export { costBitsFor };
 
 /**
  * Canonical DIMACS of formula + unit clauses: "p cnf V C\n", then one clause per line

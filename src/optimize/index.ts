@@ -25,6 +25,8 @@ export {
 } from "./formula.js";
 export { DEFAULT_ENCODING, DEFAULT_PARTS, resolveEncoding, specFor, type EncodingChoice } from "./encoding-choice.js";
 export { estimateFormula, type SizeEstimate } from "./estimate.js";
+export { planningPipeline, type PlanningPipeline } from "./pipeline.js";
+export { nextSuffixHorizon } from "./suffix-route.js";
 export { checkPlan, dropRedundant, toGroundIds, InternalError, type CheckedPlan } from "./plan-check.js";
 export { satProver } from "./prover.js";
 export type { ProofFile, ProofChecker } from "./sat-session.js";

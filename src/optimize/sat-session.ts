@@ -39,6 +39,8 @@ export interface SatSession {
   finishProof(): ProofFile | null;
   /** Drops the solver and removes any temporary proof. */
   dispose(): void;
+  /** The formula grew (state pairs): hands its clauses from index `first` on to the solver. */
+  extend(first: number): void;
 }
 
 /** A fresh temporary directory for proofs and external-solver files. */
@@ -77,6 +79,9 @@ export function builtinSession(formula: Formula, proofPath: string | null): SatS
       }
     },
     stats: () => ({ conflicts: solver.stats().conflicts, calls }),
+    extend(first) {
+      formula.streamFrom(first, solver);
+    },
     finishProof() {
       if (!writer || !lastUnsat || disposed) return null;
       writer.close();
@@ -159,6 +164,9 @@ export function externalSession(formula: Formula, command: string, workDir: stri
       return { status: "unknown" };
     },
     stats: () => ({ conflicts: 0, calls }),
+    extend() {
+      // every query sends the whole formula, added clauses included
+    },
     finishProof() {
       const p = proof;
       proof = null;

@@ -14,6 +14,7 @@ export function stoppedOutcome(reason: LimitReason, seconds: number, phase: stri
     provedBy: null,
     horizon: null,
     horizonWinner: null,
+    thresholdAvoided: null,
     encoding: null,
     proof: null,
     seconds,

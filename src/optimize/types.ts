@@ -11,7 +11,7 @@ import type { CheckedPlan } from "./plan-check.js";
 import type { ProofChecker, ProofFile } from "./sat-session.js";
 
 export type OutcomeStatus = "optimal" | "feasible" | "unsolvable" | "unknown";
-export type ProofHow = "horizon-unsat" | "lower-bound" | "relaxed-unreachable";
+export type ProofHow = "horizon-unsat" | "suffix-unsat" | "lower-bound" | "relaxed-unreachable";
 
 export interface OptimizeOptions {
   /**
@@ -55,6 +55,18 @@ export interface OptimizeOptions {
    * otherwise a note says so and GBFS runs.
    */
   incumbent?: readonly string[];
+  /**
+   * Proofs with a relaxed suffix (part relaxed-suffix-1) at short horizons, before a completeness
+   * threshold is reached (default true). False: threshold proofs only.
+   */
+  suffix?: boolean;
+  /**
+   * Limits of the horizon methods (src/horizon); e.g. `{ maxOptimalStates: 0, maxExplicitStates: 1 }`
+   * keeps the explicit-state methods out (benchmarks of the general bounds). Certificates record
+   * them and the audit recomputes the horizon with the same limits (every limit is sound: it
+   * only bounds how much is explored).
+   */
+  horizonLimits?: { maxOptimalStates?: number; maxExplicitStates?: number; maxProjectionStates?: number };
 }
 
 export interface TimelineEvent {
@@ -76,7 +88,10 @@ export interface CertificateMaterial {
   prepared: PreparedTask;
   claim: { status: "optimal" | "unsolvable"; how: ProofHow };
   plan: CheckedPlan | null;
-  /** horizon-unsat: the horizon report for the upper cost the formula was built for. */
+  /**
+   * horizon-unsat: the horizon report for the upper cost the formula was built for;
+   * suffix-unsat: the threshold for the claimed cost that the proof made unnecessary (for people).
+   */
   horizon: HorizonReport | null;
   formula: Formula | null;
   /** The unit clauses of the final query (bound literals). */
@@ -86,6 +101,8 @@ export interface CertificateMaterial {
   proof: ProofFile | null;
   landmarks: LandmarkRecord | null;
   timeline: TimelineEvent[];
+  /** The horizon methods' limits when not the defaults (recorded so the audit uses the same). */
+  horizonLimits: OptimizeOptions["horizonLimits"] | null;
 }
 
 export interface OptimizeOutcome {
@@ -102,6 +119,8 @@ export interface OptimizeOutcome {
   /** The horizon of the proof formula, or the one a proof would need (string when huge). */
   horizon: number | string | null;
   horizonWinner: string | null;
+  /** suffix-unsat: the completeness threshold the proof did without (for people). */
+  thresholdAvoided: number | string | null;
   encoding: string | null;
   proof: ProofFile | null;
   seconds: number;

@@ -19,6 +19,7 @@ interface SolveCliOptions {
   memoryLimit?: string;
   encoding?: string;
   sat?: string;
+  suffix?: boolean;
 }
 
 const CAUTION = "(plans are only as good as the model: an optimal plan of an incomplete model can still be unsafe in the real world)";
@@ -43,8 +44,9 @@ export function registerSolve(program: Command, ctx: CliContext): void {
     program
       .command("solve")
       .description(
-        "find a cost-optimal plan and prove it: SAT queries 'is there a cheaper plan?' at a proven completeness threshold until one is\n" +
-          "unsatisfiable (DRAT proof), or a landmark lower bound equal to the plan's cost. Status optimal, feasible (plan, no proof),\n" +
+        "find a cost-optimal plan and prove it: SAT queries 'is there a cheaper plan?' until one is unsatisfiable (DRAT proof) — first\n" +
+          "with a few real steps and a relaxed suffix (a proof at any plan length), then at a proven completeness threshold — or a\n" +
+          "landmark lower bound equal to the plan's cost. Status optimal, feasible (plan, no proof),\n" +
           "unsolvable (proven) or unknown. Exit 0 optimal/unsolvable, 2 bad input, 3 limit reached (the best plan is still written).",
       )
       .argument("<domain>", "PDDL domain file")
@@ -59,6 +61,7 @@ export function registerSolve(program: Command, ctx: CliContext): void {
           "with the cost encoding chosen by size and the parts reach-1 and empty-steps-last-1; or a full formula id such as\n" +
           "forall-1+cost-unary-1+reach-1+empty-steps-last-1 (step+cost+parts, as certificates record it)",
       )
+      .option("--no-suffix", "prove only at completeness thresholds (no relaxed-suffix formulas at short horizons)")
       .option("--sat <solver>", "builtin (default), or external:CMD — a DIMACS solver run once per query ('{cnf}' and '{proof}' stand for the files); its DRAT proof is checked, and without one the final query is re-run with the built-in solver", "builtin"),
   ).action(async (domain: string, problem: string, opts: SolveCliOptions) => {
     ctx.configure(opts);
@@ -73,6 +76,7 @@ export function registerSolve(program: Command, ctx: CliContext): void {
     if (sat !== "builtin" && !(sat.startsWith("external:") && sat.length > "external:".length)) throw new PlumblineError("usage", `--sat expects builtin or external:CMD, found '${sat}'`);
     const out = await optimizeFiles(domain, problem, {
       encoding: opts.encoding,
+      suffix: opts.suffix !== false,
       sat,
       timeLimit,
       memoryLimitMb,
@@ -104,6 +108,7 @@ export function registerSolve(program: Command, ctx: CliContext): void {
         stopReason: out.stopReason,
         horizon: out.horizon,
         horizonMethod: out.horizonWinner,
+        thresholdAvoided: out.thresholdAvoided,
         encoding: out.encoding,
         proof: out.proof ? { kind: "drat", file: certificate ? `${certificate}/proof.drat.gz` : null, bytes: out.proof.bytes, format: out.proof.format, engine: out.proof.engine } : out.how === "lower-bound" ? { kind: "landmarks", file: certificate ? `${certificate}/landmarks.json` : null, bytes: null } : null,
         certificate,
@@ -121,7 +126,8 @@ export function registerSolve(program: Command, ctx: CliContext): void {
       });
       const lines = [headline(out)];
       if (out.plan) lines.push("", ...out.plan.names, `; cost = ${out.cost}`);
-      if (out.horizon !== null && out.how !== "lower-bound") lines.push("", `horizon: ${out.horizon}${out.horizonWinner ? ` (${out.horizonWinner} bound)` : ""}${out.status === "feasible" || out.status === "unknown" ? " — what a proof would need" : ""}`);
+      if (out.how === "suffix-unsat") lines.push("", `proved at horizon ${out.horizon} with a relaxed suffix${out.thresholdAvoided !== null ? ` (a completeness threshold would have needed ${out.thresholdAvoided})` : ""}`);
+      else if (out.horizon !== null && out.how !== "lower-bound") lines.push("", `horizon: ${out.horizon}${out.horizonWinner ? ` (${out.horizonWinner} bound)` : ""}${out.status === "feasible" || out.status === "unknown" ? " — what a proof would need" : ""}`);
       for (const n of out.notes) lines.push(`note: ${n}`);
       if (certificate) lines.push(`certificate written to ${certificate} (check it with: plumbline audit ${certificate})`);
       lines.push("", CAUTION);

@@ -1,0 +1,175 @@
+// One optimizer run's state: limits, progress, the best plan so far, bounds, timeline, and the
+// open SAT session — shared by the threshold route (driver.ts) and the suffix route.
+import { extractPlan, PARTS, type PartId } from "../encode/index.js";
+import type { GroundOptions, Task } from "../ground/index.js";
+import type { HorizonReport } from "../horizon/index.js";
+import type { Model } from "../pddl/index.js";
+import type { LandmarkRecord } from "../search/index.js";
+import { PlumblineError } from "../util/errors.js";
+import { Budget } from "./budget.js";
+import { resolveEncoding, type EncodingChoice } from "./encoding-choice.js";
+import { estimateFormula } from "./estimate.js";
+import { formulaId, type Formula, type FormulaSpec } from "./formula.js";
+import { planningPipeline, type PlanningPipeline } from "./pipeline.js";
+import { checkPlan, dropRedundant, InternalError, toGroundIds, type CheckedPlan } from "./plan-check.js";
+import { Progress } from "./progress.js";
+import { builtinSession, externalSession, makeWorkDir, type ProofFile, type QueryResult, type SatSession } from "./sat-session.js";
+import type { OptimizeOptions, TimelineEvent } from "./types.js";
+
+export class Run {
+  readonly budget: Budget;
+  readonly progress: Progress;
+  readonly timeline: TimelineEvent[] = [];
+  readonly notes: string[] = [];
+  readonly pipeline: PlanningPipeline;
+  readonly encoding: EncodingChoice;
+  readonly engine: string;
+  readonly workDir: string;
+  best: CheckedPlan | null = null;
+  /** Proven lower bound on the optimum (landmark-cut, then refutations of the suffix route). */
+  lower = 0;
+  landmarks: LandmarkRecord | null = null;
+  satCalls = 0;
+  conflicts = 0;
+  timeToFirstPlan: number | null = null;
+  lastFormula: Formula | null = null;
+  private session: SatSession | null = null;
+  private sessionConflicts0 = 0;
+  private proofSeq = 0;
+
+  constructor(
+    readonly model: Model,
+    readonly task: Task,
+    readonly groundOptions: GroundOptions,
+    readonly opts: OptimizeOptions,
+  ) {
+    this.budget = new Budget(opts);
+    this.progress = new Progress(opts.onProgress, this.budget, opts.progressIntervalMs ?? 2000);
+    this.encoding = resolveEncoding(opts.encoding);
+    this.engine = opts.sat ?? "builtin";
+    if (this.engine !== "builtin" && !this.engine.startsWith("external:")) throw new PlumblineError("usage", `--sat expects builtin or external:CMD, found '${this.engine}'`);
+    this.pipeline = planningPipeline(task);
+    this.workDir = makeWorkDir(opts.tmpDir);
+  }
+
+  get prepared() {
+    return this.pipeline.prepared;
+  }
+
+  event(kind: string, detail?: string): void {
+    this.timeline.push({ seconds: this.budget.elapsed(), kind, upper: this.best?.cost ?? null, lower: this.lower, detail });
+  }
+
+  /** Records a new best plan (ids of the prepared task, or of the ground task with `ground`), validated on the lifted model. */
+  improve(workIds: readonly number[], origin: string, ground = false): void {
+    const plan = checkPlan(this.model, this.task, dropRedundant(this.task, ground ? workIds : toGroundIds(this.prepared, workIds)), origin);
+    if (this.best !== null && plan.cost >= this.best.cost) throw new InternalError(`${origin} returned a plan of cost ${plan.cost}, not cheaper than ${this.best.cost}`);
+    if (plan.cost < this.lower) throw new InternalError(`${origin} returned a plan of cost ${plan.cost} below the proven lower bound ${this.lower}`);
+    this.best = plan;
+    this.opts.onPlan?.(plan);
+    if (this.timeToFirstPlan === null) this.timeToFirstPlan = this.budget.elapsed();
+    this.event("plan", origin);
+    this.progress.say(`plan of cost ${plan.cost} (${plan.length} actions) from ${origin}`);
+  }
+
+  /** Raises the proven lower bound (never lowers it). */
+  raiseLower(bound: number, how: string): void {
+    if (bound <= this.lower) return;
+    if (this.best !== null && bound > this.best.cost) throw new InternalError(`${how} proved a lower bound ${bound} above the cost ${this.best.cost} of a valid plan`);
+    this.lower = bound;
+    this.event("lower-bound", how);
+    this.progress.say(`lower bound ${bound} (${how})`);
+  }
+
+  /**
+   * The formula spec of the run's encoding choice for `steps` and queries below `upper`: its
+   * parts without relaxed-suffix-1 (threshold formulas), or with it and the state pairs given.
+   */
+  spec(steps: number, upper: number, suffix?: { pairs: [number, number][] }): FormulaSpec {
+    const parts = new Set<PartId>(this.encoding.parts);
+    if (suffix) parts.add("relaxed-suffix-1");
+    else parts.delete("relaxed-suffix-1");
+    const choice = { ...this.encoding, parts: PARTS.filter((p) => parts.has(p)) };
+    return this.pipeline.spec(choice, steps, upper, suffix ? { "relaxed-suffix-1": { pairs: suffix.pairs.map(([t, u]) => [t, u]) } } : undefined);
+  }
+
+  /** Can a formula of `spec` be built and solved within the limits? */
+  fits(spec: FormulaSpec): { ok: boolean; why: string } {
+    const est = estimateFormula(this.prepared.task, spec);
+    const maxClauses = this.opts.maxClauses ?? 30_000_000;
+    if (est.clauses > maxClauses) return { ok: false, why: `about ${est.clauses.toLocaleString("en")} clauses at horizon ${spec.steps} (limit ${maxClauses.toLocaleString("en")})` };
+    if (est.bytes > this.budget.memoryLeft()) return { ok: false, why: `about ${Math.round(est.bytes / 1048576)} MB needed at horizon ${spec.steps}, ${Math.round(this.budget.memoryLeft() / 1048576)} MB left under the memory limit` };
+    return { ok: true, why: "" };
+  }
+
+  /** Builds the formula of `spec` and opens a session on it (closing the previous one). */
+  open(spec: FormulaSpec, withProof: boolean): SatSession {
+    this.close();
+    const formula = this.pipeline.formula(spec);
+    this.lastFormula = formula;
+    const proofPath = withProof ? `${this.workDir}/proof-${++this.proofSeq}.drat` : null;
+    const s = this.engine === "builtin" ? builtinSession(formula, proofPath) : externalSession(formula, this.engine.slice("external:".length), this.workDir, this.opts.proofChecker ?? null);
+    this.session = s;
+    this.sessionConflicts0 = s.stats().conflicts;
+    const st = this.progress.state;
+    st.horizon = spec.steps;
+    st.vars = formula.numVars;
+    st.clauses = formula.numClauses;
+    st.conflicts = () => this.totalConflicts();
+    this.event("encode", `${formulaId(spec)} at horizon ${spec.steps}: ${formula.numVars} variables, ${formula.numClauses} clauses`);
+    return s;
+  }
+
+  /** Conflicts of every session so far, the open one included. */
+  totalConflicts(): number {
+    return this.conflicts + (this.session ? this.session.stats().conflicts - this.sessionConflicts0 : 0);
+  }
+
+  close(): void {
+    if (!this.session) return;
+    this.conflicts += this.session.stats().conflicts - this.sessionConflicts0;
+    this.session.dispose();
+    this.session = null;
+  }
+
+  /** One query "cost ≤ bound" (Infinity: any plan) on the open session, plus `extra` unit literals. */
+  async ask(s: SatSession, bound: number, conflicts?: number, extra: readonly number[] = []): Promise<QueryResult> {
+    this.satCalls++;
+    this.progress.state.bound = Number.isFinite(bound) ? bound : null;
+    const units = [...s.formula.boundUnits(bound), ...extra];
+    return s.query(units, this.budget, { conflicts, tick: () => this.progress.tick() });
+  }
+
+  /** Decodes, linearises and validates a model of the open formula. */
+  planFrom(s: SatSession, value: (v: number) => boolean, origin: string): void {
+    let ex;
+    try {
+      ex = extractPlan(this.prepared.task, s.formula.encoding, value);
+    } catch (e) {
+      throw new InternalError(`decoding a model of the ${origin} formula failed: ${(e as Error).message}`);
+    }
+    this.improve(ex.plan, origin);
+  }
+
+  /**
+   * An external solver said "unsat" without a checked proof: the query is re-run with the
+   * built-in solver. Returns its proof, null when it could not finish, "sat" on disagreement.
+   */
+  async reproveBuiltin(formula: Formula, bound: number): Promise<ProofFile | null | "sat"> {
+    this.notes.push("the external solver gave no checkable proof; re-running the final query with the built-in solver");
+    const own = builtinSession(formula, `${this.workDir}/proof-final.drat`);
+    const r = await own.query(formula.boundUnits(bound), this.budget, { tick: () => this.progress.tick() });
+    this.satCalls++;
+    const p = r.status === "unsat" ? own.finishProof() : null;
+    this.conflicts += own.stats().conflicts;
+    own.dispose();
+    if (r.status === "sat") return "sat";
+    return p;
+  }
+
+  horizonFor(upper: number): HorizonReport {
+    const r = this.pipeline.horizon(upper, this.opts.horizonLimits);
+    this.event("horizon", `horizon ${r.horizonText} for cost < ${Number.isFinite(upper) ? upper : "∞"} (${r.winner})`);
+    return r;
+  }
+}
