@@ -41,7 +41,28 @@ function horizonMethods(cert: Record<string, unknown>): { methods: Array<Record<
   return visit(cert, 0);
 }
 
+/** A suffix-unsat claim: no threshold was needed; say so beside the one it made unnecessary. */
+function suffixSection(cert: Record<string, unknown>): string | null {
+  const claim = cert.claim;
+  if (!isObj(claim) || claim.how !== "suffix-unsat") return null;
+  const enc = isObj(cert.encoding) ? cert.encoding : {};
+  const steps = isObj(enc.params) ? enc.params.steps : undefined;
+  const avoided = isObj(cert.thresholdAvoided) ? cert.thresholdAvoided : null;
+  const pp = isObj(enc.partParams) && isObj(enc.partParams["relaxed-suffix-1"]) ? enc.partParams["relaxed-suffix-1"] : null;
+  const pairs = pp && Array.isArray(pp.pairs) ? pp.pairs.length : 0;
+  return (
+    `<p><strong>Proved at horizon ${esc(show(steps))} with a relaxed suffix</strong>: no plan cheaper than the claimed cost exists at any length — ` +
+    `${esc(show(steps))} real steps (never idle, no state repeated before the goal${pairs > 0 ? `; ${pairs} state pairs made distinct` : ""}), then the goal reached ignoring deletes, with every action's cost counted, is already too dear.</p>` +
+    (avoided
+      ? `<p>A proof at a completeness threshold would have needed <strong>${esc(show(avoided.horizon))}</strong> steps (${esc(show(avoided.method))}, for cost &lt; ${esc(show(avoided.upperCost))}); this figure is informational — the audit does not use it.</p>`
+      : "") +
+    `<p class="note">audit rebuilds this formula from the model and checks the proof; no horizon needs recomputing.</p>`
+  );
+}
+
 function derivationSection(cert: Record<string, unknown>): string {
+  const suffix = suffixSection(cert);
+  if (suffix !== null) return suffix;
   const h = horizonMethods(cert);
   if (!h) {
     const d = findField(cert, ["derivation", "horizonDerivation", "horizon"]);
@@ -85,7 +106,8 @@ export function certificateReportHtml(v: CertificateView, audit: AuditView): str
   const claimText = isObj(claim) ? [claim.status ?? claim.kind ?? claim.claim, claim.method ?? claim.how ?? claim.by].filter((x) => x !== undefined).map(show).join(" · ") : show(claim);
   const cost = findField(c, ["cost", "planCost"]);
   const length = findField(c, ["length", "planLength"]);
-  const horizon = horizonMethods(c)?.holder.horizon ?? findField(c, ["horizon"]);
+  const suffixSteps = isObj(claim) && claim.how === "suffix-unsat" && isObj(c.encoding) && isObj(c.encoding.params) ? c.encoding.params.steps : undefined;
+  const horizon = suffixSteps !== undefined ? `${show(suffixSteps)} (relaxed suffix)` : (horizonMethods(c)?.holder.horizon ?? findField(c, ["horizon"]));
   const parts: string[] = [];
   parts.push(
     `<div class="tiles">${[

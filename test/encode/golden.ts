@@ -25,6 +25,8 @@ export interface GoldenFormula {
   encoding: StepEncodingId;
   cost: CostEncodingId;
   parts: PartId[];
+  /** relaxed-suffix-1 formulas: state pairs, [t, t′] with t′ = −1 meaning the fixture's last step. */
+  pairs?: [number, number][];
 }
 
 /** Every subset of the parts, in canonical order. */
@@ -33,6 +35,14 @@ export const PART_SETS: readonly PartId[][] = [[], ["reach-1"], ["empty-steps-la
 /** Every step encoding × cost encoding × part set. */
 export const GOLDEN_FORMULAS: readonly GoldenFormula[] = STEP_ENCODINGS.flatMap((encoding) =>
   COST_ENCODINGS.flatMap((cost) => PART_SETS.map((parts) => ({ id: [encoding, cost, ...parts].join("+"), encoding, cost, parts: [...parts] }))),
+);
+
+/** relaxed-suffix-1 with the other parts, every step × cost encoding, state pairs [0, 1] and [0, T]. */
+export const SUFFIX_FORMULAS: readonly GoldenFormula[] = STEP_ENCODINGS.flatMap((encoding) =>
+  COST_ENCODINGS.map((cost) => {
+    const parts: PartId[] = ["reach-1", "relaxed-suffix-1", "empty-steps-last-1"];
+    return { id: [encoding, cost, ...parts].join("+"), encoding, cost, parts, pairs: [[0, 1], [0, -1]] as [number, number][] };
+  }),
 );
 
 /**
@@ -47,6 +57,7 @@ export function goldenFile(f: GoldenFormula | StepEncodingId, fx: GoldenFixture)
 
 /** The fixture's formula with its steps and mutex groups, default costBits / costCap. */
 export function encodeFixture(f: GoldenFormula | StepEncodingId, fx: GoldenFixture): Encoding {
-  const g = typeof f === "string" ? { encoding: f, cost: "cost-adder-1" as const, parts: [] } : f;
-  return encodePlanning(fx.task, { encoding: g.encoding, cost: g.cost, parts: g.parts, steps: fx.steps, mutexGroups: fx.mutexGroups });
+  const g: Omit<GoldenFormula, "id"> = typeof f === "string" ? { encoding: f, cost: "cost-adder-1" as const, parts: [] } : f;
+  const partParams = g.pairs ? { "relaxed-suffix-1": { pairs: g.pairs.map(([t, u]): [number, number] => [t, u < 0 ? fx.steps : u]) } } : undefined;
+  return encodePlanning(fx.task, { encoding: g.encoding, cost: g.cost, parts: g.parts, steps: fx.steps, mutexGroups: fx.mutexGroups, partParams });
 }

@@ -2,9 +2,9 @@
 // DIMACS on stdout or in a file. Wiring only; the work is in src/optimize/formula.ts and src/encode.
 import * as fs from "node:fs";
 import type { Command } from "commander";
-import { prepareTask } from "../../analyse/index.js";
+import { PARTS } from "../../encode/index.js";
 import { groundFiles } from "../../ground/index.js";
-import { boundSettings, buildFormula, costSetting, DEFAULT_ENCODING, estimateFormula, formulaId, OPTIMIZE_GROUNDING, resolveEncoding, specFor, writeCanonicalDimacs } from "../../optimize/index.js";
+import { costSetting, DEFAULT_ENCODING, estimateFormula, formulaId, OPTIMIZE_GROUNDING, planningPipeline, resolveEncoding, writeCanonicalDimacs } from "../../optimize/index.js";
 import { PlumblineError } from "../../util/errors.js";
 import { tempNameFor } from "../../util/files.js";
 import { withCommonOptions, type CliContext } from "../context.js";
@@ -21,6 +21,7 @@ interface EncodeCliOptions {
   output?: string;
   plain?: boolean;
   timeLimit?: string;
+  suffix?: boolean;
 }
 
 /** Largest --steps accepted before grounding (the formula's size is checked after). */
@@ -58,6 +59,11 @@ export function registerEncode(program: Command, ctx: CliContext): void {
           "(as a certificate records it; forall-1+cost-adder-1+empty-steps-last-1 is what solve built before cost-unary-1 and reach-1 existed)",
       )
       .option("--plain", "leave out the optional parts (reach-1 pruning, empty-steps-last-1 ordering): step encoding and cost encoding only")
+      .option(
+        "--suffix",
+        "add the part relaxed-suffix-1: T real steps, then a delete-relaxed plan finishes (its cost counted); with --cost-below C the\n" +
+          "formula is unsatisfiable only when no plan of cost ≤ C − 1 exists at all, at any length (the formula solve proves with)",
+      )
       .option("-o, --output <file>", "write the CNF to this file (default: stdout)")
       .option("--time-limit <seconds>", "stop after this many seconds (exit 3; no file is written)"),
   ).action((domain: string, problem: string, opts: EncodeCliOptions) => {
@@ -67,19 +73,17 @@ export function registerEncode(program: Command, ctx: CliContext): void {
     deadlineFrom(opts.timeLimit);
     checkOutputs([opts.output !== undefined ? { flag: "--output", path: opts.output, kind: "file" } : null], [domain, problem]);
     const { task } = groundFiles(domain, problem, OPTIMIZE_GROUNDING);
-    const prepared = prepareTask(task);
+    const pipe = planningPipeline(task);
+    const prepared = pipe.prepared;
     const choice = resolveEncoding(opts.encoding);
     if (opts.plain) choice.parts = [];
-    const spec = specFor(prepared.task, choice, {
-      steps,
-      ...boundSettings(below ?? Infinity),
-      mutexGroups: prepared.variables.variables.filter((v) => v.facts.length > 1).map((v) => [...v.facts]),
-    });
+    if (opts.suffix && !choice.parts.includes("relaxed-suffix-1")) choice.parts = PARTS.filter((p) => p === "relaxed-suffix-1" || choice.parts.includes(p));
+    const spec = pipe.spec(choice, steps, below ?? Infinity);
     const est = estimateFormula(prepared.task, spec);
     if (est.clauses > MAX_CLAUSES) {
       throw new PlumblineError("usage", `--steps ${steps}: the formula would have about ${Math.round(est.clauses).toLocaleString("en")} clauses, above the limit of ${MAX_CLAUSES.toLocaleString("en")} (choose fewer steps)`);
     }
-    const f = buildFormula(prepared.task, spec);
+    const f = pipe.formula(spec);
     const units = f.boundUnits(below === undefined ? Infinity : below - 1);
     const setting = costSetting(spec);
     const comments = [

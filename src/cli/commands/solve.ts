@@ -20,6 +20,7 @@ interface SolveCliOptions {
   encoding?: string;
   sat?: string;
   suffix?: boolean;
+  generalBoundsOnly?: boolean;
 }
 
 const CAUTION = "(plans are only as good as the model: an optimal plan of an incomplete model can still be unsafe in the real world)";
@@ -62,6 +63,7 @@ export function registerSolve(program: Command, ctx: CliContext): void {
           "forall-1+cost-unary-1+reach-1+empty-steps-last-1 (step+cost+parts, as certificates record it)",
       )
       .option("--no-suffix", "prove only at completeness thresholds (no relaxed-suffix formulas at short horizons)")
+      .option("--general-bounds-only", "completeness thresholds from the general bounds only, without exploring the state space (for measurements; the certificate records it)")
       .option("--sat <solver>", "builtin (default), or external:CMD — a DIMACS solver run once per query ('{cnf}' and '{proof}' stand for the files); its DRAT proof is checked, and without one the final query is re-run with the built-in solver", "builtin"),
   ).action(async (domain: string, problem: string, opts: SolveCliOptions) => {
     ctx.configure(opts);
@@ -77,6 +79,7 @@ export function registerSolve(program: Command, ctx: CliContext): void {
     const out = await optimizeFiles(domain, problem, {
       encoding: opts.encoding,
       suffix: opts.suffix !== false,
+      horizonLimits: opts.generalBoundsOnly ? { maxOptimalStates: 0, maxExplicitStates: 1 } : undefined,
       sat,
       timeLimit,
       memoryLimitMb,
