@@ -4,8 +4,9 @@
 // the first raises the shared abort flag (the command stops and writes its best result, exit 3),
 // a second one ends the process at once.
 import * as fs from "node:fs";
-import { Worker } from "node:worker_threads";
+import type { Worker } from "node:worker_threads";
 import { abortFlagBuffer, requestAbort } from "../util/limits.js";
+import { startThread } from "../util/thread.js";
 
 const say = (s: string) => {
   try {
@@ -14,23 +15,6 @@ const say = (s: string) => {
     /* stderr gone */
   }
 };
-
-/** The worker: compiled JavaScript as is; TypeScript sources (run through tsx) need tsx's loader in the new thread. */
-function startWorker(data: unknown): Worker {
-  const self = import.meta.url;
-  if (!self.endsWith(".ts")) return new Worker(new URL("./worker.js", self), { workerData: data });
-  const loader = import.meta.resolve("tsx/esm/api");
-  const entry = new URL("./worker.ts", self).href;
-  // tsx's own --require/--import hooks must not be inherited: they would load the entry a second way
-  const execArgv: string[] = [];
-  for (let i = 0; i < process.execArgv.length; i++) {
-    const a = process.execArgv[i];
-    if ((a === "--require" || a === "--import") && /tsx/.test(process.execArgv[i + 1] ?? "")) i++;
-    else if (!/tsx/.test(a)) execArgv.push(a);
-  }
-  const boot = `import(${JSON.stringify(loader)}).then((m) => { m.register(); return import(${JSON.stringify(entry)}); })`;
-  return new Worker(boot, { eval: true, workerData: data, execArgv });
-}
 
 let worker: Worker | null = null;
 let exitCode: number | null = null;
@@ -50,7 +34,8 @@ function onSignal(name: NodeJS.Signals): void {
 process.on("SIGINT", onSignal);
 process.on("SIGTERM", onSignal);
 
-worker = startWorker({ argv: process.argv.slice(2), flag: abortFlagBuffer() });
+// the worker: compiled JavaScript as is; TypeScript sources (run through tsx) with tsx's loader
+worker = startThread(import.meta.url, "worker", { argv: process.argv.slice(2), flag: abortFlagBuffer() });
 
 worker.on("message", (m: { exitCode?: number }) => {
   if (typeof m?.exitCode === "number") exitCode = m.exitCode;

@@ -49,6 +49,7 @@ async function optimizeWithin(model: Model, task: Task, groundOptions: GroundOpt
     if (isLimitReached(e)) return finish(run, run.best ? "feasible" : "unknown", null, e.reason);
     throw e;
   } finally {
+    run.stopHelper();
     run.close();
     // the work directory holds only temporary files; a proof that is kept was handed over
     // inside it, so remove the directory only when it is empty
@@ -75,6 +76,7 @@ async function drive(run: Run): Promise<OptimizeOutcome> {
   } else run.notes.push("the landmark-cut record did not pass its own check; lower bound 0 used");
   run.event("lower-bound", `landmark-cut ${run.lower}`);
   run.progress.say(`lower bound ${run.lower} (landmark-cut); ${run.prepared.task.facts.length} facts, ${run.prepared.task.actions.length} actions after pruning`);
+  run.startHelper();
 
   // 2. first plan: the caller's incumbent when it is a plan of this task, else GBFS
   const incumbent = run.opts.incumbent ? incumbentIds(task, run.opts.incumbent) : null;
@@ -158,6 +160,7 @@ export async function thresholdRoute(run: Run, known?: HorizonReport): Promise<O
   let probed = false;
   let rep0 = known ?? null;
   for (;;) {
+    run.pollHelper();
     const best = run.best!;
     const lb = byLandmarks(run);
     if (lb) return lb;
@@ -173,7 +176,7 @@ export async function thresholdRoute(run: Run, known?: HorizonReport): Promise<O
       run.progress.say(`the proof would need horizon ${rep.horizonText}: ${fit.why}; improving the plan at growing horizons instead`);
       return anytime(run, rep);
     }
-    if (!probed && run.opts.probes !== false) {
+    if (!probed && run.opts.probes !== false && !run.incumbentOptimal) {
       probed = true;
       const improved = await probe(run, H);
       if (improved === "stop") return finish(run, "feasible", null, run.budget.stop() ?? "time");
@@ -185,6 +188,7 @@ export async function thresholdRoute(run: Run, known?: HorizonReport): Promise<O
     for (;;) {
       const C = run.best!.cost;
       const q = await run.ask(s, C - 1);
+      if (q.interrupted) break; // a better plan arrived from the helper: ask again with its cost
       if (q.status === "unknown") return finish(run, "feasible", null, run.budget.stop() ?? "time", { horizon: rep });
       if (q.status === "unsat") {
         const proof = s.finishProof() ?? (await run.reproveBuiltin(s.formula, C - 1));
@@ -236,6 +240,7 @@ async function probe(run: Run, H: number): Promise<boolean | "stop"> {
 async function anytime(run: Run, rep: HorizonReport): Promise<OptimizeOutcome> {
   let T = Math.max(2, Math.ceil(run.best!.length / 2));
   for (;;) {
+    run.pollHelper();
     const lb = byLandmarks(run);
     if (lb) return lb;
     const stop = run.budget.stop();
@@ -248,6 +253,7 @@ async function anytime(run: Run, rep: HorizonReport): Promise<OptimizeOutcome> {
       const q = await run.ask(s, run.best!.cost - 1, ANYTIME_CONFLICTS);
       const stopped = run.budget.stop();
       if (q.status === "unknown" && stopped) return finish(run, "feasible", null, stopped, { horizon: rep });
+      if (q.interrupted) break;
       if (q.status !== "sat") break; // unsat, or undecided within its conflicts: try a longer horizon
       run.planFrom(s, q.value!, `SAT at horizon ${T}`);
       if (run.best!.cost === run.lower) break;

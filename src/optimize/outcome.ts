@@ -24,6 +24,8 @@ export interface FinishExtra {
 
 export function finish(run: Run, status: OptimizeOutcome["status"], how: ProofHow | null, stopReason: OptimizeOutcome["stopReason"], extra: FinishExtra = {}): OptimizeOutcome {
   if (stopReason) run.event("stop", stopReason);
+  if (status === "feasible" && run.incumbentOptimal)
+    run.notes.push(`A* with landmark-cut searched exhaustively: no plan is cheaper than ${run.best!.cost}; that search leaves no certificate, so the status stays feasible`);
   const formula = extra.formula ?? null;
   const claimable = (status === "optimal" || status === "unsolvable") && how !== null;
   const horizon = extra.horizon ?? null;

@@ -14,6 +14,7 @@ import { planningPipeline, type PlanningPipeline } from "./pipeline.js";
 import { checkPlan, dropRedundant, InternalError, toGroundIds, type CheckedPlan } from "./plan-check.js";
 import { Progress } from "./progress.js";
 import { builtinSession, externalSession, makeWorkDir, type ProofFile, type QueryResult, type SatSession } from "./sat-session.js";
+import { helperCoreAvailable, SearchHelper } from "./search-helper.js";
 import type { OptimizeOptions, TimelineEvent } from "./types.js";
 
 export class Run {
@@ -33,6 +34,12 @@ export class Run {
   conflicts = 0;
   timeToFirstPlan: number | null = null;
   lastFormula: Formula | null = null;
+  /**
+   * The optimum as established by the search helper's exhaustive A* (not certifiable: only a
+   * SAT refutation or a landmark bound goes into a certificate), or null while unknown.
+   */
+  optimumKnown: number | null = null;
+  private helper: SearchHelper | null = null;
   private session: SatSession | null = null;
   private sessionConflicts0 = 0;
   private proofSeq = 0;
@@ -70,6 +77,43 @@ export class Run {
     if (this.timeToFirstPlan === null) this.timeToFirstPlan = this.budget.elapsed();
     this.event("plan", origin);
     this.progress.say(`plan of cost ${plan.cost} (${plan.length} actions) from ${origin}`);
+  }
+
+  /** Starts A* with landmark-cut on a second thread (when there is a second core and it is wanted). */
+  startHelper(): void {
+    if (this.opts.searchHelper === false || this.helper !== null || !helperCoreAvailable()) return;
+    this.helper = new SearchHelper(this.prepared.task, { deadline: this.budget.deadline, memoryLimitBytes: this.budget.memoryLimitBytes });
+    this.progress.say("A* with landmark-cut started on a second thread (a plan it finds becomes the incumbent)");
+  }
+
+  /** Takes the helper's result if it has arrived: an optimal plan becomes the incumbent. True when something changed. */
+  pollHelper(): boolean {
+    const r = this.helper?.take();
+    if (!r) return false;
+    if (r.status === "solved" && r.plan && r.cost !== null) {
+      if (this.best === null || r.cost < this.best.cost) this.improve(r.plan, "A* with landmark-cut (second thread)");
+      this.optimumKnown = r.cost;
+      this.event("helper", `A* with landmark-cut: the optimum is ${r.cost} (exhaustive search, ${r.expanded} expansions; not certifiable by itself)`);
+      return true;
+    }
+    this.event("helper", `A* with landmark-cut ended: ${r.status}${r.stopReason ? ` (${r.stopReason})` : ""}${r.lowerBound !== null ? `, its lower bound ${r.lowerBound}` : ""}`);
+    if (r.status === "unsolvable") this.notes.push("A* with landmark-cut exhausted the reachable states without reaching the goal (not certifiable by itself)");
+    return false;
+  }
+
+  /** True while a helper result waits to be taken (a query should give way). */
+  helperHasNews(): boolean {
+    return this.helper?.pending === true;
+  }
+
+  stopHelper(): void {
+    this.helper?.stop();
+    this.helper = null;
+  }
+
+  /** Is the incumbent known to be optimal (by the helper), so only its proof is missing? */
+  get incumbentOptimal(): boolean {
+    return this.best !== null && this.optimumKnown === this.best.cost;
   }
 
   /** Raises the proven lower bound (never lowers it). */
@@ -137,7 +181,7 @@ export class Run {
     this.satCalls++;
     this.progress.state.bound = Number.isFinite(bound) ? bound : null;
     const units = [...s.formula.boundUnits(bound), ...extra];
-    return s.query(units, this.budget, { conflicts, tick: () => this.progress.tick() });
+    return s.query(units, this.budget, { conflicts, tick: () => this.progress.tick(), interrupt: () => this.helperHasNews() });
   }
 
   /** Decodes, linearises and validates a model of the open formula. */

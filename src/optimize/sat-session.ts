@@ -23,6 +23,17 @@ export interface QueryResult {
   value?: (v: number) => boolean;
   /** After unsat: true when a DRAT proof of formula + these units exists (see `finishProof`). */
   proved?: boolean;
+  /** Unknown because `interrupt` asked to give up, not because of a limit. */
+  interrupted?: boolean;
+}
+
+export interface QueryOptions {
+  /** Conflicts the query may spend (unknown after that). */
+  conflicts?: number;
+  /** Called between time slices (progress, limits). */
+  tick?: () => void;
+  /** Asked between time slices: true gives up the query (status unknown, `interrupted`), e.g. when a better plan arrived. */
+  interrupt?: () => boolean;
 }
 
 export interface SessionStats {
@@ -33,7 +44,7 @@ export interface SessionStats {
 export interface SatSession {
   readonly formula: Formula;
   /** Solves formula ∧ units. `tick` is called between time slices (progress, limits). */
-  query(units: number[], budget: Budget, opts?: { conflicts?: number; tick?: () => void }): Promise<QueryResult>;
+  query(units: number[], budget: Budget, opts?: QueryOptions): Promise<QueryResult>;
   stats(): SessionStats;
   /** After an unsat query that was proved: the proof file (ownership passes to the caller). */
   finishProof(): ProofFile | null;
@@ -69,6 +80,7 @@ export function builtinSession(formula: Formula, proofPath: string | null): SatS
         const slice = Math.min(budget.deadline, Date.now() + 500);
         const r = await solver.solveAsync(units, { deadline: slice, conflicts: left, signal: budget.signal });
         opts.tick?.();
+        if (r !== "sat" && r !== "unsat" && opts.interrupt?.()) return { status: "unknown", interrupted: true };
         if (r === "sat") {
           return { status: "sat", value: (v: number) => solver.value(v) === true };
         }

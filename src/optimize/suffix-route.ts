@@ -33,6 +33,7 @@ export async function suffixRoute(run: Run, thresholdRoute: (run: Run, known?: H
   let rep: HorizonReport | null = null;
   let h = 1;
   for (;;) {
+    run.pollHelper();
     const lb = byLandmarks(run);
     if (lb) return lb;
     const stop = run.budget.stop();
@@ -75,11 +76,16 @@ async function atHorizon(run: Run, s: SatSession, h: number, pairs: [number, num
   let target = Infinity; // the bound asked below the incumbent while tightening the lower bound
   let planSearched = false;
   for (;;) {
+    if (run.pollHelper()) {
+      target = Infinity;
+      planSearched = false;
+    }
     const C = run.best!.cost;
     const bound = Math.min(target, C - 1);
     if (bound < run.lower) return { kind: "grow" };
     const proving = bound === C - 1;
     const q = await run.ask(s, bound, proving ? undefined : DESCENT_CONFLICTS);
+    if (q.interrupted) continue; // the helper's result arrived: ask again with it
     if (q.status === "unknown") return proving || run.budget.stop() ? { kind: "stop" } : { kind: "grow" };
     if (q.status === "unsat") {
       if (!proving) {
@@ -107,6 +113,8 @@ async function atHorizon(run: Run, s: SatSession, h: number, pairs: [number, num
       continue;
     }
     if (m.cost > bound) throw new InternalError(`a model of "cost ≤ ${bound}" costs ${m.cost}`);
+    // the helper's exhaustive search showed no cheaper plan exists: only the refutation is left
+    if (run.incumbentOptimal) return { kind: "grow" };
     if (proving && !planSearched) {
       planSearched = true;
       const qp = await run.ask(s, bound, PLAN_CONFLICTS, goalUnits);

@@ -67,6 +67,11 @@ export interface OptimizeOptions {
    * only bounds how much is explored).
    */
   horizonLimits?: { maxOptimalStates?: number; maxExplicitStates?: number; maxProjectionStates?: number };
+  /**
+   * A* with landmark-cut on a second thread beside the SAT queries (default: when the machine
+   * has two cores or more); an optimal plan it finds becomes the incumbent.
+   */
+  searchHelper?: boolean;
 }
 
 export interface TimelineEvent {
