@@ -4,6 +4,7 @@ import type { Task } from "../ground/task.js";
 import type { CnfBuilder } from "./cnf.js";
 import type { Possible } from "./cost-inputs.js";
 import { emitAdderCost, emitUnaryCost, type CostEmitInput, type CostPart } from "./cost-part.js";
+import { emitEagerSteps } from "./eager-steps.js";
 import { emitEmptyStepsLast } from "./empty-steps-last.js";
 import type { CostEncodingId, PartId } from "./ids.js";
 import type { Layout } from "./layout.js";
@@ -79,6 +80,8 @@ export interface PartRecord {
   proof: PartProof;
   /** True when the part, not core-1's goal units at T, makes the plan reach the goal. */
   replacesGoal?: boolean;
+  /** True when the part is sound only with parallel (∀-step) step encodings. */
+  parallelOnly?: boolean;
   /** Checks and normalises the part's parameters (throws RangeError); undefined: none taken. */
   params?(raw: unknown, steps: number): unknown;
   /** Directly after the initial state (and goal) units. */
@@ -171,6 +174,17 @@ export const PART_RECORDS: readonly PartRecord[] = [
     atEnd(ctx) {
       for (const p of ctx.params["relaxed-suffix-1"]?.pairs ?? []) emitStatePair(ctx.cnf, ctx.L, ctx.suffix!, p, ctx.layers);
       ctx.part("distinct-states");
+    },
+  },
+  {
+    id: "eager-steps-1",
+    summary: "every action after the first step depends on an action of the step before (each action as early as it can go; ∀-step encodings only)",
+    spec: "eager-steps-1.md",
+    proof: "threshold",
+    parallelOnly: true,
+    afterCost(ctx) {
+      emitEagerSteps(ctx.cnf, ctx.task, ctx.info, ctx.L);
+      ctx.part("eager-steps");
     },
   },
   {

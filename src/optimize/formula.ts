@@ -7,6 +7,7 @@ import {
   costBitsFor,
   costEncodingRecord,
   encodePlanning,
+  PARTS,
   STEP_ENCODINGS,
   type CostEncodingId,
   type EncodeOptions,
@@ -164,15 +165,17 @@ export function formulaId(spec: Pick<FormulaSpec, "encoding" | "cost" | "parts">
 }
 
 /**
- * Reads a formula id ("forall-1+cost-unary-1+reach-1+empty-steps-last-1") or a bare step
- * encoding ("forall-1"; the cost and parts are then left to the caller). Throws RangeError
- * naming what is unknown.
+ * Reads a formula id ("forall-1+cost-unary-1+reach-1+empty-steps-last-1"), a step encoding with
+ * parts but no cost encoding ("forall-1+reach-1+eager-steps-1": the cost encoding is left to the
+ * caller's choice by size), or a bare step encoding ("forall-1": cost and parts left to the
+ * caller). Throws RangeError naming what is unknown.
  */
 export function parseFormulaId(id: string): { encoding: StepEncodingId; cost: CostEncodingId | null; parts: PartId[] | null } {
   const [step, ...rest] = id.split("+");
   if (!STEP_ENCODINGS.includes(step as StepEncodingId)) throw new RangeError(`unknown step encoding '${step}' (known: ${STEP_ENCODINGS.join(", ")})`);
   if (rest.length === 0) return { encoding: step as StepEncodingId, cost: null, parts: null };
   const cost = rest[0];
-  if (!COST_ENCODINGS.includes(cost as CostEncodingId)) throw new RangeError(`unknown cost encoding '${cost}' (known: ${COST_ENCODINGS.join(", ")})`);
-  return { encoding: step as StepEncodingId, cost: cost as CostEncodingId, parts: checkParts(rest.slice(1)) };
+  if (COST_ENCODINGS.includes(cost as CostEncodingId)) return { encoding: step as StepEncodingId, cost: cost as CostEncodingId, parts: checkParts(rest.slice(1)) };
+  if (PARTS.includes(cost as PartId)) return { encoding: step as StepEncodingId, cost: null, parts: checkParts(rest) };
+  throw new RangeError(`unknown cost encoding or part '${cost}' (cost encodings: ${COST_ENCODINGS.join(", ")}; parts: ${PARTS.join(", ")})`);
 }

@@ -8,11 +8,29 @@ import { encodePlanning, extractPlan, type Encoding } from "../../src/encode/ind
 import type { Task } from "../../src/ground/task.js";
 import { Solver } from "../../src/sat/index.js";
 import { applicable, cheapestWithin, initialState, isGoal, optimalCost, replayGround, successor, type RefState } from "../support/reference.js";
-import { GOLDEN_FORMULAS as FORMULAS, type GoldenFormula } from "./golden.js";
+import { EAGER_FORMULAS, GOLDEN_FORMULAS, type GoldenFormula } from "./golden.js";
 import { Oracle } from "./oracle.js";
 import { factoredWithGroups, movesTaskArb, nonTrivial, richTaskArb, runs } from "./rich-task.js";
 
 type Tasked = { task: Task; groups: number[][] };
+/** Every formula with a golden CNF, eager-steps-1 included. */
+const FORMULAS = [...GOLDEN_FORMULAS, ...EAGER_FORMULAS];
+
+/** eager-steps-1: does some action of `prev` write what `b` reads, or read or write what `b` writes (or is `b` itself)? */
+function dependsOn(task: Task, b: number, prev: readonly number[]): boolean {
+  const touches = (a: number) => {
+    const act = task.actions[a];
+    const reads = new Set([...act.pre, ...act.preNeg, ...act.cond.flatMap((c) => [...c.cond, ...c.condNeg])]);
+    const writes = new Set([...act.add, ...act.del, ...act.cond.flatMap((c) => [...c.add, ...c.del])]);
+    return { reads, writes };
+  };
+  const tb = touches(b);
+  return prev.some((a) => {
+    if (a === b) return true;
+    const ta = touches(a);
+    return [...ta.writes].some((f) => tb.reads.has(f) || tb.writes.has(f)) || [...tb.writes].some((f) => ta.reads.has(f));
+  });
+}
 const solvable = (t: Task) => optimalCost(t) !== null;
 const notAtGoal = ({ task }: Tasked) => !isGoal(task, initialState(task));
 const withGroups = fc.oneof(factoredWithGroups({ maxVars: 3, maxActions: 6 }, 4), movesTaskArb(3)).filter(notAtGoal);
@@ -95,6 +113,10 @@ function checkFormula(t: Tasked, f: GoldenFormula, enc: Encoding, bounds: number
       }
       // no plan of ≤ T actions is that cheap: the model's plan must be a longer parallel one
       if (!fits) expect(got.plan.length).toBeGreaterThan(T);
+      if (f.parts.includes("eager-steps-1")) {
+        // every action after the first step depends on one of the step before
+        for (let k = 1; k < got.steps.length; k++) for (const b of got.steps[k]) expect(dependsOn(task, b, got.steps[k - 1]), `${f.id}: step ${k + 1}`).toBe(true);
+      }
       if (f.parts.includes("empty-steps-last-1")) {
         const lastNonEmpty = got.steps.reduce((k, s, i) => (s.length > 0 ? i + 1 : k), 0);
         expect(got.steps.slice(0, lastNonEmpty).every((s) => s.length > 0)).toBe(true);

@@ -37,6 +37,13 @@ export const GOLDEN_FORMULAS: readonly GoldenFormula[] = STEP_ENCODINGS.flatMap(
   COST_ENCODINGS.flatMap((cost) => PART_SETS.map((parts) => ({ id: [encoding, cost, ...parts].join("+"), encoding, cost, parts: [...parts] }))),
 );
 
+/** eager-steps-1 (parallel step encodings only), alone and with reach-1 and empty-steps-last-1. */
+export const EAGER_FORMULAS: readonly GoldenFormula[] = STEP_ENCODINGS.filter((e) => e !== "seq-1").flatMap((encoding) =>
+  COST_ENCODINGS.flatMap((cost) =>
+    ([["eager-steps-1"], ["reach-1", "eager-steps-1", "empty-steps-last-1"]] as PartId[][]).map((parts) => ({ id: [encoding, cost, ...parts].join("+"), encoding, cost, parts })),
+  ),
+);
+
 /** relaxed-suffix-1 with the other parts, every step × cost encoding, state pairs [0, 1] and [0, T]. */
 export const SUFFIX_FORMULAS: readonly GoldenFormula[] = STEP_ENCODINGS.flatMap((encoding) =>
   COST_ENCODINGS.map((cost) => {

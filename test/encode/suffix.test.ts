@@ -136,6 +136,8 @@ const SETTINGS: Omit<EncodeOptions, "steps">[] = [
   { encoding: "seq-1", cost: "cost-unary-1", parts: ["relaxed-suffix-1"] },
   { encoding: "forall-1", cost: "cost-adder-1", parts: ["reach-1", "relaxed-suffix-1", "empty-steps-last-1"] },
   { encoding: "forall-2", cost: "cost-unary-1", parts: ["reach-1", "relaxed-suffix-1"] },
+  { encoding: "forall-1", cost: "cost-unary-1", parts: ["reach-1", "relaxed-suffix-1", "eager-steps-1", "empty-steps-last-1"] },
+  { encoding: "forall-2", cost: "cost-adder-1", parts: ["relaxed-suffix-1", "eager-steps-1"] },
   { encoding: "seq-1", cost: "cost-adder-1", parts: ["reach-1", "relaxed-suffix-1", "empty-steps-last-1"] },
 ];
 
