@@ -234,7 +234,9 @@ export function auditDirs(dirs: readonly string[], opts: BulkOptions, report: (e
             s.job.index,
             s.job.timedOut
               ? bare(dir, "unfinished", `not finished within the time limit of ${limit} s (stopped ${grace} s past it)`, secs)
-              : bare(dir, "error", `the audit process ended unexpectedly (${signal ?? `exit code ${code}`})${s.stderr ? `: ${s.stderr.trim().split("\n").slice(-3).join(" ")}` : ""}`, secs),
+              : signal === "SIGINT" || signal === "SIGTERM" // Ctrl-C reaches the children too, maybe before the parent's abort
+                ? bare(dir, "unfinished", `interrupted (${signal}) before the audit finished`, secs)
+                : bare(dir, "error", `the audit process ended unexpectedly (${signal ?? `exit code ${code}`})${s.stderr ? `: ${s.stderr.trim().split("\n").slice(-3).join(" ")}` : ""}`, secs),
           );
           if (next < dirs.length) dispatch(spawn());
         }

@@ -2,7 +2,7 @@
 // longer valid, valid at another cost, still optimal (proven again from the plan), or a cheaper plan.
 import * as fs from "node:fs";
 import * as path from "node:path";
-import { diffTasks, ground, type TaskDiff } from "../ground/index.js";
+import { diffTasks, ground, pruneIrrelevant, type Task, type TaskDiff } from "../ground/index.js";
 import { disposeOutcome, optimize, OPTIMIZE_GROUNDING, type OptimizeOutcome } from "../optimize/index.js";
 import { modelFromTexts, tokenSignature, type Model } from "../pddl/index.js";
 import { parsePlan, replayPlan, stepText } from "../plan/index.js";
@@ -206,8 +206,10 @@ async function rejudgeWithin(certDir: string, opts: RejudgeOptions): Promise<Rej
 
   // 2. what changed, as ground tasks (no pruning, so every action counts)
   let change: TaskDiff | null = null;
+  let full: Task | null = null; // the new model's ground task without pruning (pruned below for the optimizer: same as grounding with it)
   try {
-    change = diffTasks(ground(modelFromTexts(text(oldDomain), oldDomainPath, text(oldProblem), oldProblemPath)), ground(model));
+    full = ground(model);
+    change = diffTasks(ground(modelFromTexts(text(oldDomain), oldDomainPath, text(oldProblem), oldProblemPath)), full);
   } catch (e) {
     base.notes.push(isLimitReached(e) ? `a limit stopped the comparison of the ground tasks (${e.message})` : `the recorded model could not be ground for comparison: ${(e as Error).message}`);
   }
@@ -238,7 +240,7 @@ async function rejudgeWithin(certDir: string, opts: RejudgeOptions): Promise<Rej
   const reuseHorizon = notReused("horizon", HORIZON_WHY[change?.kind ?? "other"]);
   let task;
   try {
-    task = ground(model, OPTIMIZE_GROUNDING);
+    task = full && OPTIMIZE_GROUNDING.relevance ? pruneIrrelevant(full) : ground(model, OPTIMIZE_GROUNDING);
   } catch (e) {
     if (!isLimitReached(e)) throw e;
     const verdict: RejudgeVerdict = newCost !== recordedCost ? "cost-changed" : "undecided";
