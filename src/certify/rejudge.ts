@@ -3,7 +3,7 @@
 import * as fs from "node:fs";
 import * as path from "node:path";
 import { diffTasks, ground, pruneIrrelevant, type Task, type TaskDiff } from "../ground/index.js";
-import { disposeOutcome, optimize, OPTIMIZE_GROUNDING, type OptimizeOutcome } from "../optimize/index.js";
+import { disposeOutcome, optimize, OPTIMIZE_GROUNDING, planFile, type OptimizeOutcome } from "../optimize/index.js";
 import { modelFromTexts, tokenSignature, type Model } from "../pddl/index.js";
 import { parsePlan, replayPlan, stepText } from "../plan/index.js";
 import { isPlumblineError, PlumblineError } from "../util/errors.js";
@@ -73,7 +73,8 @@ export interface RejudgeResult {
   newCost: number | null;
   /** True: the recorded plan is proven optimal in the new model; false: a cheaper plan exists; null: undecided. */
   optimal: boolean | null;
-  cheaperPlan: { plan: string[]; cost: number; proven: boolean } | null;
+  /** The cheaper plan: its steps, cost, whether it is proven optimal, and its plan file (plumbline's layout). */
+  cheaperPlan: { plan: string[]; cost: number; proven: boolean; text: string } | null;
   /** The new certificate's folder, or null. */
   certificate: string | null;
   /** Evidence: the re-audit (unchanged model), what changed in the ground task, what was reused. */
@@ -277,7 +278,7 @@ async function rejudgeWithin(certDir: string, opts: RejudgeOptions): Promise<Rej
       failure: null,
       newCost,
       optimal: cheaper ? false : proven && o.cost === newCost ? true : null,
-      cheaperPlan: cheaper ? { plan: o.plan!.names, cost: o.cost!, proven } : null,
+      cheaperPlan: cheaper ? { plan: o.plan!.names, cost: o.cost!, proven, text: planFile(o.plan!, proven ? o.how : null) } : null,
       certificate,
       audit: null,
       change,

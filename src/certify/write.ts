@@ -6,7 +6,7 @@ import * as path from "node:path";
 import { pipeline } from "node:stream/promises";
 import { createGzip } from "node:zlib";
 import { horizonReportJson } from "../horizon/index.js";
-import { canonicalCnfSha256, costSetting, formulaId, type CertificateMaterial } from "../optimize/index.js";
+import { canonicalCnfSha256, costSetting, formulaId, planFile, type CertificateMaterial } from "../optimize/index.js";
 import { PlumblineError } from "../util/errors.js";
 import { writeDirAtomic } from "../util/files.js";
 import { VERSION } from "../util/version.js";
@@ -49,6 +49,8 @@ export async function writeCertificate(dir: string, m: CertificateMaterial): Pro
   if (claim.status === "optimal" && m.plan === null) throw new Error("certify: an optimality certificate needs a plan");
   if (claim.how === "horizon-unsat" && (!m.formula || !m.proof || !m.horizon)) throw new Error("certify: a horizon-unsat certificate needs a formula, a horizon and a proof");
   if (claim.how === "suffix-unsat" && (!m.formula || !m.proof)) throw new Error("certify: a suffix-unsat certificate needs a formula and a proof");
+  // plan.txt in plumbline's plan-file layout, its header naming the claim and how it is proven
+  const planText = m.plan ? planFile(m.plan, claim.how) : null;
   const json: CertificateJson = {
     formatVersion: FORMAT_VERSION,
     kind: CERTIFICATE_KIND,
@@ -59,7 +61,7 @@ export async function writeCertificate(dir: string, m: CertificateMaterial): Pro
       problem: { file: FILES.problem, sha256: sha256(model.problemText), name: model.problem.name },
     },
     claim,
-    plan: m.plan ? { file: FILES.plan, sha256: sha256(m.plan.text), cost: m.plan.cost, length: m.plan.length } : null,
+    plan: m.plan && planText !== null ? { file: FILES.plan, sha256: sha256(planText), cost: m.plan.cost, length: m.plan.length } : null,
     grounding: { relevance: m.groundOptions.relevance ?? false, facts: task.facts.length, actions: task.actions.length },
     reduction: { facts: prepared.task.facts.length, actions: prepared.task.actions.length, variables: prepared.variables.variables.length },
     horizon: null,
@@ -100,7 +102,7 @@ export async function writeCertificate(dir: string, m: CertificateMaterial): Pro
   await writeDirAtomic(dir, async (tmp) => {
     fs.writeFileSync(path.join(tmp, FILES.domain), model.domainText);
     fs.writeFileSync(path.join(tmp, FILES.problem), model.problemText);
-    if (m.plan) fs.writeFileSync(path.join(tmp, FILES.plan), m.plan.text);
+    if (planText !== null) fs.writeFileSync(path.join(tmp, FILES.plan), planText);
     if (landmarksText !== null) fs.writeFileSync(path.join(tmp, FILES.landmarks), landmarksText);
     if (m.proof) {
       const target = path.join(tmp, FILES.proof);

@@ -21,6 +21,17 @@ export function costModelOf(model: Model): CostModel {
   return model.domain.hasActionCosts ? "action-costs" : "unit";
 }
 
+/**
+ * A note for people when the model does not say plainly what is minimised: no action costs (every
+ * action counts 1, so the cheapest plan is the shortest), or action costs without
+ * `(:metric minimize (total-cost))` in the problem (total-cost is minimised anyway). Null otherwise.
+ */
+export function costModelNote(model: Model): string | null {
+  if (!model.domain.hasActionCosts) return "the domain has no action costs: every action counts 1, so plumbline minimises the number of actions (plan length)";
+  if (model.problem.metric === null) return "the problem has no (:metric minimize (total-cost)): plumbline minimises total-cost, the sum of the action costs, anyway";
+  return null;
+}
+
 export function ground(model: Model, opts: GroundOptions = {}): Task {
   const w = buildWorld(model);
   const lifted = model.domain.actions.map((a, i) => normalizeAction(w, a, i));

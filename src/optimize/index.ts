@@ -27,7 +27,7 @@ export { DEFAULT_ENCODING, DEFAULT_PARTS, resolveEncoding, specFor, type Encodin
 export { estimateFormula, type SizeEstimate } from "./estimate.js";
 export { planningPipeline, type PlanningPipeline } from "./pipeline.js";
 export { nextSuffixHorizon } from "./suffix-route.js";
-export { checkPlan, dropRedundant, toGroundIds, InternalError, type CheckedPlan } from "./plan-check.js";
+export { checkPlan, dropRedundant, planFile, toGroundIds, InternalError, type CheckedPlan } from "./plan-check.js";
 export { satProver } from "./prover.js";
 export type { ProofFile, ProofChecker } from "./sat-session.js";
 export type { OptimizeOptions, OptimizeOutcome, OutcomeStatus, ProofHow, TimelineEvent, CertificateMaterial } from "./types.js";

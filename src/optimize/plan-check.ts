@@ -3,7 +3,7 @@
 import type { PreparedTask } from "../analyse/index.js";
 import { planCost, type Task } from "../ground/task.js";
 import type { Model } from "../pddl/index.js";
-import { formatPlan, parsePlan, replayPlan, stepText } from "../plan/index.js";
+import { parsePlan, planFileText, replayPlan, stepText } from "../plan/index.js";
 import { planSteps } from "../search/index.js";
 
 /** A plan that replayed on the lifted model with the cost the ground task gives it. */
@@ -15,8 +15,15 @@ export interface CheckedPlan {
   cost: number;
   /** Number of plan-file steps. */
   length: number;
-  /** The plan file text (with a cost comment). */
+  /** The plan file text (plumbline's layout, status feasible: see `planFile` for a proven plan). */
   text: string;
+  /** "unit" when the model has no action costs (every action counts 1). */
+  costModel: Task["costModel"];
+}
+
+/** The plan file of a checked plan, stating `proof` (a proof word such as horizon-unsat) when optimality is proven. */
+export function planFile(plan: CheckedPlan, proof: string | null): string {
+  return planFileText(plan.names, { cost: plan.cost, status: proof ? "optimal" : "feasible", proof, costModel: plan.costModel });
 }
 
 /** An internal inconsistency: a bug in plumbline, never a verdict about the user's input. */
@@ -93,10 +100,10 @@ export function toGroundIds(prepared: PreparedTask, workIds: readonly number[]):
 export function checkPlan(model: Model, task: Task, groundIds: readonly number[], origin: string): CheckedPlan {
   const cost = planCost(task, groundIds);
   const steps = planSteps(task, groundIds);
-  const text = formatPlan(steps, `cost = ${cost} (${task.costModel === "unit" ? "unit costs" : "action costs"})`);
+  const text = planFileText(steps, { cost, status: "feasible", proof: null, costModel: task.costModel });
   const parsed = parsePlan(text, "plan.txt");
   const r = replayPlan(model, parsed, "plan.txt");
   if (!r.valid) throw new InternalError(`the plan from ${origin} fails on the lifted model: ${r.error?.message ?? "invalid"}`);
   if (r.cost !== cost) throw new InternalError(`the plan from ${origin} costs ${r.cost} on the lifted model but ${cost} on the ground task`);
-  return { groundIds: [...groundIds], names: parsed.map((s) => stepText(s)), cost, length: parsed.length, text };
+  return { groundIds: [...groundIds], names: parsed.map((s) => stepText(s)), cost, length: parsed.length, text, costModel: task.costModel };
 }

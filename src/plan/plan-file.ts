@@ -1,5 +1,5 @@
 // Plan files: one `(action object …)` per line with `;` comments, read with positions for
-// error messages and written in the same form (lower case, optional trailing comment).
+// error messages (also the timestamped form `0: (drive t1 a b) [1]`) and written in our layout.
 import { PlumblineError } from "../util/errors.js";
 import { readSexprs } from "../pddl/index.js";
 
@@ -16,9 +16,30 @@ export interface PlanStep {
   argPos?: Array<{ line: number; col: number }>;
 }
 
-/** Reads a plan; `file` is used in error positions. */
+/**
+ * The common timestamped line form `TIME: (action objects…) [DURATION]`: the time prefix and the
+ * duration are blanked out (same columns, so positions stay right); the step order is the line order.
+ */
+const TIMESTAMPED = /^(\s*)(\d+(?:\.\d+)?\s*:\s*)(\([^;]*?\))(\s*\[[^\]\n;]*\])?/;
+
+function blankTimestamps(text: string): string {
+  return text
+    .split("\n")
+    .map((line) => {
+      const m = TIMESTAMPED.exec(line);
+      if (!m) return line;
+      const lead = m[1] + " ".repeat(m[2].length) + m[3] + " ".repeat(m[4]?.length ?? 0);
+      return lead + line.slice(m[0].length);
+    })
+    .join("\n");
+}
+
+/**
+ * Reads a plan: one `(action object …)` per line, `;` comments (old trailers such as
+ * `; cost = 12 (optimal)` included), or lines `0: (action object …) [1]`; `file` is used in error positions.
+ */
 export function parsePlan(text: string, file: string): PlanStep[] {
-  const { nodes } = readSexprs(text, file);
+  const { nodes } = readSexprs(blankTimestamps(text), file);
   const steps: PlanStep[] = [];
   for (const n of nodes) {
     if (n.kind !== "list") throw new PlumblineError("parse", `expected a plan step '(action object …)', found '${n.text}'`, { file, line: n.line, col: n.col });
@@ -48,9 +69,40 @@ export function stepText(s: { name: string; args: readonly string[] }): string {
   return `(${[s.name, ...s.args].join(" ")})`;
 }
 
-/** Writes a plan, one step per line, with an optional trailing comment (e.g. "cost = 12 (optimal)"). */
-export function formatPlan(steps: ReadonlyArray<{ name: string; args: readonly string[] }>, comment?: string): string {
-  const lines = steps.map((s) => stepText({ name: s.name.toLowerCase(), args: s.args.map((a) => a.toLowerCase()) }));
-  if (comment) for (const l of comment.split("\n")) lines.push(`; ${l}`);
-  return lines.join("\n") + "\n";
+/** Writes plan steps only, one `(action object …)` per line in lower case (no header). */
+export function formatPlan(steps: ReadonlyArray<{ name: string; args: readonly string[] } | string>): string {
+  return steps.map((s) => (typeof s === "string" ? s.toLowerCase() : stepText({ name: s.name.toLowerCase(), args: s.args.map((a) => a.toLowerCase()) }))).join("\n") + "\n";
+}
+
+/** What the header of a plan file states (README "Plan files"). */
+export interface PlanFileInfo {
+  cost: number;
+  /** `optimal` (proven) or `feasible` (a plan, optimality not proven). */
+  status: "optimal" | "feasible";
+  /** How optimality was proven (a proof word of README "Words plumbline uses"), null when it was not. */
+  proof: string | null;
+  /** "unit" when the model has no action costs (every action counts 1). */
+  costModel?: "action-costs" | "unit";
+  /** Further comment lines (where the plan comes from), written after the fixed lines. */
+  notes?: readonly string[];
+}
+
+/** The header every plan file plumbline writes starts with; `; plumbline plan` is its first line. */
+export const PLAN_FILE_MARK = "; plumbline plan";
+
+/**
+ * A plan file in plumbline's layout: a header of `; key: value` comment lines — cost, actions,
+ * status, proof — then one `(action object …)` per line. The same from every command that writes
+ * a plan (solve, search, the certificate's plan.txt, rejudge), so people and scripts read one form.
+ */
+export function planFileText(steps: ReadonlyArray<{ name: string; args: readonly string[] } | string>, info: PlanFileInfo): string {
+  const head = [
+    PLAN_FILE_MARK,
+    `; cost: ${info.cost}${info.costModel === "unit" ? " (the model has no action costs: every action counts 1)" : ""}`,
+    `; actions: ${steps.length}`,
+    `; status: ${info.status}`,
+    `; proof: ${info.proof ?? "none (optimality not proven)"}`,
+    ...(info.notes ?? []).map((n) => `; ${n}`),
+  ];
+  return head.join("\n") + "\n" + (steps.length ? formatPlan(steps) : "");
 }

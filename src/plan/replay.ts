@@ -96,11 +96,11 @@ export function replayPlan(model: Model, steps: readonly PlanStep[], planFile = 
         action: text,
         kind: "precondition",
         literal: failed,
-        message: `step ${i + 1} ${text}: precondition ${failed} does not hold`,
+        message: `action ${i + 1} ${text}: precondition ${failed} does not hold`,
       });
     }
     const eff: EffectResult = { adds: new Set(), dels: new Set(), cost: 0 };
-    applyEffect(model, a.effect, b, s, eff, `step ${i + 1} ${text}`);
+    applyEffect(model, a.effect, b, s, eff, `action ${i + 1} ${text}`);
     const c = unit ? 1 : eff.cost;
     cost += c;
     if (opts.trace) trace.push({ step: i + 1, action: text, cost: c });
@@ -113,7 +113,7 @@ export function replayPlan(model: Model, steps: readonly PlanStep[], planFile = 
       action: null,
       kind: "goal",
       literal: g,
-      message: `after all ${steps.length} steps, goal ${g} does not hold`,
+      message: `after all ${steps.length} actions, goal ${g} does not hold`,
     });
   }
   return result(true, null);

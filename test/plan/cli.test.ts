@@ -63,7 +63,7 @@ describe("plumbline replay", () => {
   it("a valid plan: exit 0, cost and length", async () => {
     const r = await cli(["replay", ...Q, fixturePath("quay/yard.plan")]);
     expect(r.code).toBe(0);
-    expect(r.stdout).toContain("plan valid: 6 steps, cost 10");
+    expect(r.stdout).toContain("plan valid: 6 actions, cost 10");
     expect(r.stdout).toContain("only as good as the model");
     const j = (await cli(["replay", ...Q, fixturePath("quay/yard.plan"), "--json"])).json();
     expect(j).toMatchObject({ valid: true, cost: 10, length: 6, error: null });
@@ -81,7 +81,7 @@ describe("plumbline replay", () => {
     });
     const h = await cli(["replay", ...Q, p]);
     expect(h.code).toBe(1);
-    expect(h.stdout).toContain("step 2 (drive truck1 main-quay depot1): precondition (not (busy truck1)) does not hold");
+    expect(h.stdout).toContain("action 2 (drive truck1 main-quay depot1): precondition (not (busy truck1)) does not hold");
   });
 
   it("a plan naming an unknown object: invalid, exit 1, with the plan file's line:col", async () => {

@@ -2,7 +2,7 @@
 // action, arity, unknown object, wrong type), and mapping plan steps to ground actions.
 import { describe, expect, it } from "vitest";
 import { ground } from "../../src/ground/index.js";
-import { actionNamesToIndices, formatPlan, parsePlan, replayPlan, resolveSteps } from "../../src/plan/index.js";
+import { actionNamesToIndices, formatPlan, parsePlan, planFileText, PLAN_FILE_MARK, replayPlan, resolveSteps } from "../../src/plan/index.js";
 import { replayGround } from "../support/reference.js";
 import { fixture, fixtureModel } from "../fixtures/frontend/problems.js";
 import { expectPlumblineError, marked } from "../pddl/marker.js";
@@ -20,17 +20,50 @@ describe("plan files", () => {
     expect(steps[0].argPos![2]).toEqual({ line: 2, col: 17 });
   });
 
-  it("formatPlan writes what parsePlan reads, with a trailing comment", () => {
-    const text = formatPlan(
-      [
-        { name: "Pick", args: ["Ball1", "room-a", "left"] },
-        { name: "move", args: ["room-a", "room-b"] },
-      ],
-      "cost = 2 (example)",
-    );
-    expect(text).toBe("(pick ball1 room-a left)\n(move room-a room-b)\n; cost = 2 (example)\n");
+  it("formatPlan writes what parsePlan reads: one lower-case step per line", () => {
+    const text = formatPlan([{ name: "Pick", args: ["Ball1", "room-a", "left"] }, "(move room-a room-b)"]);
+    expect(text).toBe("(pick ball1 room-a left)\n(move room-a room-b)\n");
     expect(parsePlan(text, "p").map((s) => s.name)).toEqual(["pick", "move"]);
-    expect(formatPlan([])).toBe("\n");
+  });
+
+  it("planFileText: a header of '; key: value' lines (cost, actions, status, proof), then the steps; read back unchanged", () => {
+    const steps = [
+      { name: "Pick", args: ["Ball1", "room-a", "left"] },
+      { name: "move", args: ["room-a", "room-b"] },
+    ];
+    const text = planFileText(steps, { cost: 2, status: "optimal", proof: "horizon-unsat", notes: ["from a test"] });
+    expect(text).toBe(
+      `${PLAN_FILE_MARK}\n; cost: 2\n; actions: 2\n; status: optimal\n; proof: horizon-unsat\n; from a test\n(pick ball1 room-a left)\n(move room-a room-b)\n`,
+    );
+    expect(parsePlan(text, "p").map((s) => [s.name, s.args])).toEqual([
+      ["pick", ["ball1", "room-a", "left"]],
+      ["move", ["room-a", "room-b"]],
+    ]);
+    const feasible = planFileText(["(move a b)"], { cost: 3, status: "feasible", proof: null, costModel: "unit" });
+    expect(feasible).toContain("; status: feasible\n; proof: none (optimality not proven)\n");
+    expect(feasible).toContain("; cost: 3 (the model has no action costs: every action counts 1)\n");
+    // the empty plan: a header and no step
+    expect(parsePlan(planFileText([], { cost: 0, status: "optimal", proof: "lower-bound" }), "p")).toEqual([]);
+  });
+
+  it("reads files with the older trailer ('; cost = N (…)') as before", () => {
+    const steps = parsePlan("(drive t1 a b)\n(load c1 t1 b)\n; cost = 5 (action costs)\n", "old.plan");
+    expect(steps.map((s) => s.name)).toEqual(["drive", "load"]);
+  });
+
+  it("reads the common timestamped form '0: (drive t1 a b) [1]', with positions in the original columns", () => {
+    const text = "; timestamped\n0: (drive t1 a b) [1]\n1.000: (Load c1 t1 b)  [2] ; comment\n2:(unload c1 t1 c)\n";
+    const steps = parsePlan(text, "t.plan");
+    expect(steps.map((s) => [s.name, s.args])).toEqual([
+      ["drive", ["t1", "a", "b"]],
+      ["load", ["c1", "t1", "b"]],
+      ["unload", ["c1", "t1", "c"]],
+    ]);
+    expect(steps[0]).toMatchObject({ line: 2, col: 4, namePos: { line: 2, col: 5 } });
+    expect(steps[1]).toMatchObject({ line: 3, col: 8 });
+    expect(steps[2]).toMatchObject({ line: 4, col: 3 });
+    // a mistake inside a timestamped step is still reported at its own column
+    expectPlumblineError(() => parsePlan("0: (drive ?t a b) [1]\n", "t.plan"), { code: "parse", message: /expected an object name, found '\?t'/, file: "t.plan", line: 1, col: 11 });
   });
 
   const SYNTAX: Array<[string, string, RegExp]> = [
@@ -39,7 +72,7 @@ describe("plan files", () => {
     ["a nested list", "(pick «(a) b)", /expected an object name, found '\('/],
     ["a number as action", "(«12 a)", /expected an action name, found '12'/],
     ["a variable argument", "(pick «?x)", /expected an object name, found '\?x'/],
-    ["a step number prefix", "«0: (pick a)", /unexpected character ':' in '0:'/],
+    ["a step number prefix without a step", "«0: pick a", /unexpected character ':' in '0:'/],
     ["an unclosed step", "(pick a\n«", /expected '\)' to close the '\(' opened at 1:1, found end of file/],
   ];
   for (const [label, src, message] of SYNTAX) {

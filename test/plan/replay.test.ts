@@ -38,7 +38,7 @@ describe("gripper", () => {
     const model = fixtureModel("gripper/domain.pddl", "gripper/four-balls.pddl");
     const r = replayPlan(model, plan("(pick ball1 room-a left)\n(pick ball2 room-a left)"));
     expect(r.error).toMatchObject({ step: 2, action: "(pick ball2 room-a left)", kind: "precondition", literal: "(free left)" });
-    expect(r.error!.message).toBe("step 2 (pick ball2 room-a left): precondition (free left) does not hold");
+    expect(r.error!.message).toBe("action 2 (pick ball2 room-a left): precondition (free left) does not hold");
     expect(r.cost).toBe(1);
   });
 });

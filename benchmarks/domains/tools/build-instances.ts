@@ -4,6 +4,7 @@
 // Usage: npx tsx benchmarks/domains/tools/build-instances.ts [SCENARIO ...] [--check]
 import * as fs from "node:fs";
 import * as path from "node:path";
+import { planFileText } from "../../../src/plan/index.js";
 import { writeFileAtomic } from "../../../src/util/files.js";
 import { scenarios, resolveParams, type Scenario, type SizeName } from "../index.js";
 import { analyseInstance } from "./figures.js";
@@ -12,13 +13,14 @@ import { instancesFile, readInstances, type InstanceRecord } from "./instances.j
 /** Above this many states the layered "cheapest within the shortest length" search is skipped. */
 const LAYERED_LIMIT = 300_000;
 
+/** The committed plan file, in plumbline's plan-file layout (src/plan/plan-file.ts). */
 export function planText(sc: Scenario, problem: string, plan: string[], cost: number): string {
-  return [
-    `; ${problem}: a cheapest plan, and among cheapest plans one with the fewest actions`,
-    `; found by benchmarks/domains/tools/build-instances.ts (Dijkstra over ${sc.name}/model.ts)`,
-    ...plan,
-    `; cost = ${cost} (optimal)`,
-  ].join("\n") + "\n";
+  return planFileText(plan, {
+    cost,
+    status: "optimal",
+    proof: "exhaustive-search",
+    notes: [`${problem}: a cheapest plan, and among cheapest plans one with the fewest actions`, `found by benchmarks/domains/tools/build-instances.ts (Dijkstra over ${sc.name}/model.ts)`],
+  });
 }
 
 function build(sc: Scenario, check: boolean): string[] {

@@ -1,7 +1,7 @@
 // `plumbline compare DOMAIN PROBLEM PLAN`: validates another planner's plan and compares its
 // cost with our proven optimum. Wiring only; the work is in src/search/compare.ts.
 import type { Command } from "commander";
-import { groundFiles } from "../../ground/index.js";
+import { costModelNote, groundFiles } from "../../ground/index.js";
 import { parsePlan } from "../../plan/index.js";
 import { satProver } from "../../optimize/index.js";
 import { comparePlan, sideBySide, type CompareResult } from "../../search/index.js";
@@ -45,6 +45,8 @@ export function registerCompare(program: Command, ctx: CliContext): void {
     const deadline = seconds === undefined ? undefined : Date.now() + seconds * 1000;
     const steps = parsePlan(readText(planPath), planPath);
     const { model, task } = groundFiles(domain, problem);
+    const costNote = costModelNote(model);
+    if (costNote) ctx.note(`note: ${costNote}`);
     // the SAT optimizer proves the optimum when it can; exhaustive A* takes over otherwise
     const prover = satProver(model, {}, { onProgress: (line) => ctx.note(line) });
     const r = await comparePlan(model, task, steps, { deadline, signal: ctx.signal, planFile: planPath, prover });

@@ -93,7 +93,7 @@ export function registerRejudge(program: Command, ctx: CliContext): void {
       ].filter((x) => x);
       lines.push(`what changed (ground task): ${parts.length ? parts.join("; ") : "nothing but the order"}`);
     }
-    if (r.cheaperPlan) lines.push("", "cheaper plan:", ...r.cheaperPlan.plan, `; cost = ${r.cheaperPlan.cost}`, "");
+    if (r.cheaperPlan) lines.push("", "cheaper plan:", r.cheaperPlan.text.trimEnd(), "");
     if (r.audit && !r.audit.valid) for (const c of r.audit.checks) if (!c.ok && !c.skipped) lines.push(`FAIL  ${c.name}: ${c.detail}`);
     for (const u of r.reuse) lines.push(`${u.reused ? "reused" : "not reused"}: ${u.part} — ${u.why}`);
     for (const n of r.notes) lines.push(`note: ${n}`);

@@ -15,7 +15,7 @@ export function registerReplay(program: Command, ctx: CliContext): void {
       .argument("<domain>", "PDDL domain file")
       .argument("<problem>", "PDDL problem file")
       .argument("<plan>", "plan file: one (action object …) per line, ';' comments")
-      .option("--trace", "also list every step with its cost")
+      .option("--trace", "also list every action with its cost")
       .option("--time-limit <seconds>", "stop after this many seconds (exit 3)"),
   ).action((domain: string, problem: string, planPath: string, opts: { json?: boolean; quiet?: boolean; verbose?: boolean; trace?: boolean; timeLimit?: string }) => {
     ctx.configure(opts);
@@ -28,12 +28,12 @@ export function registerReplay(program: Command, ctx: CliContext): void {
     const lines: string[] = [];
     if (opts.trace && r.trace) for (const t of r.trace) lines.push(`${String(t.step).padStart(4)}  ${t.action}  cost ${t.cost}`);
     if (r.valid) {
-      lines.push(`plan valid: ${r.length} step${r.length === 1 ? "" : "s"}, cost ${r.cost}`);
+      lines.push(`plan valid: ${r.length} action${r.length === 1 ? "" : "s"}, cost ${r.cost}`);
       lines.push("(valid for the model as written: a plan is only as good as the model)");
     } else {
       lines.push("plan invalid");
       lines.push(`  ${r.error!.message}`);
-      lines.push(`  length ${r.length}, cost of the steps before the failure ${r.cost}`);
+      lines.push(`  ${r.length} actions in the plan; the actions before the failure cost ${r.cost}`);
     }
     ctx.out(lines.join("\n"));
   });

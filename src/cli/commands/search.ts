@@ -1,8 +1,8 @@
 // `plumbline search DOMAIN PROBLEM`: the built-in explicit-state planner (A* for optimal
 // plans, GBFS for quick first plans). Wiring only; the work is in src/search.
 import { Option, type Command } from "commander";
-import { groundFiles } from "../../ground/index.js";
-import { formatPlan } from "../../plan/index.js";
+import { costModelNote, groundFiles } from "../../ground/index.js";
+import { planFileText } from "../../plan/index.js";
 import { astar, gbfs, limitStop, planNames, planSteps, type HeuristicName, type SearchResult } from "../../search/index.js";
 import { PlumblineError } from "../../util/errors.js";
 import { writeFileAtomic } from "../../util/files.js";
@@ -69,6 +69,8 @@ export function registerSearch(program: Command, ctx: CliContext): void {
       return;
     }
     const { model, task, seconds: groundSeconds } = grounded;
+    const costNote = costModelNote(model);
+    if (costNote) ctx.note(`note: ${costNote}`);
     ctx.note(`grounded ${task.facts.length} facts, ${task.actions.length} actions in ${groundSeconds.toFixed(2)} s; searching (${greedy ? "greedy best-first" : "A*"}, ${heuristic})`);
     const limits = { deadline, signal: ctx.signal };
     const r: SearchResult = greedy
@@ -78,8 +80,8 @@ export function registerSearch(program: Command, ctx: CliContext): void {
     ctx.exitCode = status === "unknown" ? 3 : 0; // a plan or proven unsolvability is an answer (README: exit codes)
     const names = r.plan ? planNames(task, r.plan) : null;
     if (r.plan && opts.plan) {
-      const comment = `cost = ${r.cost} (${status}, found by ${greedy ? "greedy best-first search" : "A*"} with ${heuristic})`;
-      writeFileAtomic(opts.plan, formatPlan(planSteps(task, r.plan), comment));
+      const proof = greedy ? null : "exhaustive-search";
+      writeFileAtomic(opts.plan, planFileText(planSteps(task, r.plan), { cost: r.cost!, status: greedy ? "feasible" : "optimal", proof, costModel: task.costModel, notes: [`found by ${greedy ? "greedy best-first search" : "A*"} with ${heuristic}`] }));
     }
     const peak = peakMemoryBytes();
     ctx.result({

@@ -2,7 +2,7 @@
 // and a certificate directory. Wiring only; the work is in src/optimize and src/certify.
 import type { Command } from "commander";
 import { dratChecker, writeCertificate } from "../../certify/index.js";
-import { DEFAULT_ENCODING, disposeOutcome, optimizeFiles, resolveEncoding, type OptimizeOutcome } from "../../optimize/index.js";
+import { DEFAULT_ENCODING, disposeOutcome, optimizeFiles, planFile, resolveEncoding, type OptimizeOutcome } from "../../optimize/index.js";
 import { PlumblineError } from "../../util/errors.js";
 import { writeFileAtomic } from "../../util/files.js";
 import { positiveNumber } from "../options.js";
@@ -90,7 +90,9 @@ export function registerSolve(program: Command, ctx: CliContext): void {
       proofChecker: dratChecker,
     });
     try {
-      if (opts.plan && out.plan) writeFileAtomic(opts.plan, out.plan.text);
+      // the plan file's header states the status and, for a proven optimum, how it was proven
+      const planText = out.plan ? planFile(out.plan, out.status === "optimal" ? out.how : null) : null;
+      if (opts.plan && planText !== null) writeFileAtomic(opts.plan, planText);
       let certificate: string | null = null;
       if (opts.certificate) {
         if (out.certificate) {
@@ -128,7 +130,7 @@ export function registerSolve(program: Command, ctx: CliContext): void {
         notes: out.notes,
       });
       const lines = [headline(out)];
-      if (out.plan) lines.push("", ...out.plan.names, `; cost = ${out.cost}`);
+      if (planText !== null) lines.push("", planText.trimEnd());
       if (out.how === "suffix-unsat") lines.push("", `proved at horizon ${out.horizon} with a relaxed suffix${out.thresholdAvoided !== null ? ` (a completeness threshold would have needed ${out.thresholdAvoided})` : ""}`);
       else if (out.horizon !== null && out.how !== "lower-bound") lines.push("", `horizon: ${out.horizon}${out.horizonWinner ? ` (${out.horizonWinner} bound)` : ""}${out.status === "feasible" || out.status === "unknown" ? " — what a proof would need" : ""}`);
       for (const n of out.notes) lines.push(`note: ${n}`);
