@@ -106,3 +106,19 @@ export function planFileText(steps: ReadonlyArray<{ name: string; args: readonly
   ];
   return head.join("\n") + "\n" + (steps.length ? formatPlan(steps) : "");
 }
+
+/** What a plan file's comments state: the header of our layout, or the cost of an older `; cost = N` trailer. */
+export interface PlanFileHeader {
+  cost: number | null;
+  actions: number | null;
+  status: string | null;
+  proof: string | null;
+}
+
+/** Reads the stated cost, actions, status and proof of a plan file (null where it states none). */
+export function readPlanFileHeader(text: string): PlanFileHeader {
+  const field = (key: string) => new RegExp(`^\\s*;\\s*${key}:\\s*(\\S+)`, "im").exec(text)?.[1] ?? null;
+  const num = (v: string | null) => (v !== null && /^-?\d+(\.\d+)?$/.test(v) ? Number(v) : null);
+  const older = /^\s*;\s*cost\s*=\s*(-?\d+(?:\.\d+)?)/im.exec(text);
+  return { cost: num(field("cost")) ?? (older ? Number(older[1]) : null), actions: num(field("actions")), status: field("status"), proof: field("proof") };
+}

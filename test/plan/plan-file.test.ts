@@ -2,7 +2,7 @@
 // action, arity, unknown object, wrong type), and mapping plan steps to ground actions.
 import { describe, expect, it } from "vitest";
 import { ground } from "../../src/ground/index.js";
-import { actionNamesToIndices, formatPlan, parsePlan, planFileText, PLAN_FILE_MARK, replayPlan, resolveSteps } from "../../src/plan/index.js";
+import { actionNamesToIndices, formatPlan, parsePlan, planFileText, PLAN_FILE_MARK, readPlanFileHeader, replayPlan, resolveSteps } from "../../src/plan/index.js";
 import { replayGround } from "../support/reference.js";
 import { fixture, fixtureModel } from "../fixtures/frontend/problems.js";
 import { expectPlumblineError, marked } from "../pddl/marker.js";
@@ -42,6 +42,8 @@ describe("plan files", () => {
     const feasible = planFileText(["(move a b)"], { cost: 3, status: "feasible", proof: null, costModel: "unit" });
     expect(feasible).toContain("; status: feasible\n; proof: none (optimality not proven)\n");
     expect(feasible).toContain("; cost: 3 (the model has no action costs: every action counts 1)\n");
+    expect(readPlanFileHeader(text)).toEqual({ cost: 2, actions: 2, status: "optimal", proof: "horizon-unsat" });
+    expect(readPlanFileHeader(feasible)).toEqual({ cost: 3, actions: 1, status: "feasible", proof: "none" });
     // the empty plan: a header and no step
     expect(parsePlan(planFileText([], { cost: 0, status: "optimal", proof: "lower-bound" }), "p")).toEqual([]);
   });
@@ -49,6 +51,8 @@ describe("plan files", () => {
   it("reads files with the older trailer ('; cost = N (…)') as before", () => {
     const steps = parsePlan("(drive t1 a b)\n(load c1 t1 b)\n; cost = 5 (action costs)\n", "old.plan");
     expect(steps.map((s) => s.name)).toEqual(["drive", "load"]);
+    expect(readPlanFileHeader("(drive t1 a b)\n; cost = 5 (action costs)\n")).toEqual({ cost: 5, actions: null, status: null, proof: null });
+    expect(readPlanFileHeader("(drive t1 a b)\n")).toEqual({ cost: null, actions: null, status: null, proof: null });
   });
 
   it("reads the common timestamped form '0: (drive t1 a b) [1]', with positions in the original columns", () => {
