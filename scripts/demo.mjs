@@ -1,7 +1,8 @@
 // `npm run demo`: runs the built CLI on a bundled scenario instance with zero-cost actions:
 // grounding statistics, solve with a certificate, audit of that certificate; add steps below.
+// Progress (stderr) shows as it comes, before each step's result; the files stay for a look.
 import { spawnSync } from "node:child_process";
-import { existsSync, mkdtempSync, readFileSync, rmSync } from "node:fs";
+import { existsSync, mkdtempSync, readFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { dirname, join, relative } from "node:path";
 import { fileURLToPath } from "node:url";
@@ -25,7 +26,7 @@ const steps = [
   { title: "Ground the model (facts, actions, zero-cost actions)", args: ["ground", domain, problem] },
   { title: "Solve: cheapest plan, proven optimal by SAT, with a certificate", args: ["solve", domain, problem, "--plan", plan, "--certificate", certificate] },
   { title: "Audit the certificate from scratch (independent proof checker)", args: ["audit", certificate] },
-  { title: "Audit again, as JSON, to read the proven cost", args: ["audit", certificate, "--json"], quiet: true },
+  { title: "Audit again, as JSON, to read the proven cost", args: ["audit", certificate, "--json", "--quiet"], quiet: true },
 ];
 
 if (!existsSync(cli)) {
@@ -45,10 +46,15 @@ process.stdout.write(
 let failed = false;
 let last = null;
 for (const [i, step] of steps.entries()) {
-  process.stdout.write(`\n[${i + 1}/${steps.length}] ${step.title}\n$ plumbline ${step.args.map((a) => (a.startsWith(root) ? rel(a) : a)).join(" ")}\n`);
-  const r = spawnSync(process.execPath, [cli, ...step.args], { cwd: root, encoding: "utf8" });
+  process.stdout.write(`\n[${i + 1}/${steps.length}] ${step.title}\n$ npx plumbline ${step.args.map((a) => (a.startsWith(root) ? rel(a) : a)).join(" ")}\n`);
+  // stderr (progress) goes straight through while the step runs; its result (stdout) follows
+  const r = spawnSync(process.execPath, [cli, ...step.args], {
+    cwd: root,
+    encoding: "utf8",
+    stdio: ["ignore", "pipe", "inherit"],
+    env: { ...process.env, PLUMBLINE_INVOKED_AS: "npx plumbline" },
+  });
   if (!step.quiet) process.stdout.write(r.stdout ?? "");
-  if (r.stderr) process.stderr.write(r.stderr);
   last = r;
   if (r.status !== 0) {
     process.stdout.write(`(step ${i + 1} exited with code ${r.status})\n`);
@@ -57,11 +63,15 @@ for (const [i, step] of steps.entries()) {
   }
 }
 if (!failed && last) {
-  const audit = JSON.parse(last.stdout);
-  process.stdout.write(`Audit: ${audit.valid ? "valid" : "REJECTED"} — proven ${audit.claim.status} cost ${audit.cost} (recorded optimum ${record.optimalCost}).\n`);
-  if (!audit.valid || audit.cost !== record.optimalCost) failed = true;
+  // one certificate: the array has one entry
+  const [audit] = JSON.parse(last.stdout);
+  process.stdout.write(`Audit: ${audit.verdict} — proven ${audit.claim.status} cost ${audit.cost} (recorded optimum ${record.optimalCost}).\n`);
+  if (audit.verdict !== "valid" || audit.cost !== record.optimalCost) failed = true;
 }
-rmSync(out, { recursive: true, force: true });
+process.stdout.write(
+  `\nThe plan and the certificate are in ${out} (kept for you; delete the folder when done).\n` +
+    `Re-check the certificate any time with: npx plumbline audit ${certificate}\n`,
+);
 
 process.stdout.write(
   `\nNote: plans are only as good as the model — a plan that is valid and cheapest for this model is unsafe\n` +

@@ -67,7 +67,7 @@ interface AuditOutcome {
 /** Runs `plumbline audit DIR --json` in a child process under the limits. */
 export async function runAuditChild(certDir: string, opts: Limits & { graceSeconds: number; cli?: string[]; signal?: AbortSignal }): Promise<ChildOutcome> {
   const cli = opts.cli ?? cliCommand();
-  return runChild({ command: cli[0], args: [`--max-old-space-size=${Math.max(16, Math.floor(opts.memoryLimit))}`, ...cli.slice(1), "audit", certDir, "--json", "--time-limit", String(opts.timeLimit)], timeLimit: opts.timeLimit, graceSeconds: opts.graceSeconds, memoryLimit: opts.memoryLimit, signal: opts.signal });
+  return runChild({ command: cli[0], args: [`--max-old-space-size=${Math.max(16, Math.floor(opts.memoryLimit))}`, ...cli.slice(1), "audit", certDir, "--json", "--time-limit-per-certificate", String(opts.timeLimit)], timeLimit: opts.timeLimit, graceSeconds: opts.graceSeconds, memoryLimit: opts.memoryLimit, signal: opts.signal });
 }
 
 async function auditCertificate(certDir: string, opts: RunOptions, runDir: string): Promise<AuditOutcome> {

@@ -7,3 +7,4 @@ export { dratChecker } from "./proof-check.js";
 export { auditMany, auditDirs, bulkExitCode, entryOf, stoppedEarly, workEstimate, GRACE_SECONDS, type BulkEntry, type BulkVerdict, type BulkOptions } from "./bulk.js";
 export { discoverCertificates, type Discovered } from "./discover.js";
 export { rejudge, type RejudgeResult, type RejudgeVerdict, type RejudgeOptions, type PlanFailure, type ReusedPart } from "./rejudge.js";
+export { checkWords, CHECK_WORDS } from "./check-words.js";

@@ -29,3 +29,11 @@ export function deadlineFrom(timeLimit: string | undefined): number | undefined 
   tightenLimits({ deadline });
   return deadline;
 }
+
+/** A state cap: a whole number ≥ 0 (0 turns the capped method off), or `fallback` when absent. */
+export function capOption(flag: string, text: string | undefined, fallback: number): number {
+  if (text === undefined) return fallback;
+  const n = Number(text);
+  if (!Number.isSafeInteger(n) || n < 0) throw new PlumblineError("usage", `${flag} expects a whole number ≥ 0 (0 turns the method off), found '${text}'`);
+  return n;
+}

@@ -1,24 +1,37 @@
 // Builds the commander program from one file per command and runs it in-process,
 // mapping errors to the exit codes of the CLI contract (no stack traces for users).
-import { Command, CommanderError } from "commander";
+import { Command, CommanderError, Help } from "commander";
 import { isPlumblineError } from "../util/errors.js";
 import { isLimitReached, withLimits } from "../util/limits.js";
 import { CliContext, type CliIo } from "./context.js";
 import { commands } from "./commands/index.js";
+import { EXIT_CODES_TEXT, groupCommands, invocationName, wrapText } from "./help.js";
+import { renameOldOptions } from "./renamed-options.js";
 import { VERSION } from "../util/version.js";
 
 /** Exit code for a bug in plumbline itself (never for bad input). */
 export const EXIT_INTERNAL = 4;
+
+/** The top-level help with its two options after the commands, so that the main job comes first. */
+function optionsLast(cmd: Command, helper: Help): string {
+  const text = Help.prototype.formatHelp.call(helper, cmd, helper);
+  if (cmd.parent) return text;
+  const m = /\nOptions:\n(?: {2}.*\n)+\n/.exec(text);
+  if (!m) return text;
+  const rest = text.slice(0, m.index + 1) + text.slice(m.index + m[0].length);
+  return `${rest.trimEnd()}\n${m[0].trimEnd()}\n`;
+}
 
 export function buildProgram(ctx: CliContext): Command {
   const program = new Command();
   program
     .name("plumbline")
     .description(
-      "Cost-optimal planning for PDDL models with action costs, with optimality proofs anyone can re-check.\n" +
+      "Cost-optimal plans for PDDL models with action costs, proven optimal, with certificates anyone can re-check. " +
         "Plans are only as good as the model: a proven-optimal plan of a wrong model is still wrong.",
     )
     .version(VERSION)
+    .configureHelp({ subcommandTerm: (c) => c.name(), formatHelp: optionsLast, minWidthToWrap: 24 })
     .showHelpAfterError("(run with --help for usage)")
     .exitOverride()
     .configureOutput({
@@ -26,6 +39,9 @@ export function buildProgram(ctx: CliContext): Command {
       writeErr: (s) => ctx.io.stderr.write(s),
     });
   for (const register of commands) register(program, ctx);
+  groupCommands(program);
+  program.commandsGroup("Other:").helpCommand("help [command]", "show the help of a command");
+  program.addHelpText("after", "\n" + wrapText(`Run '${invocationName()} COMMAND --help' for a command's options. ${EXIT_CODES_TEXT}`));
   return program;
 }
 
@@ -36,9 +52,11 @@ export function buildProgram(ctx: CliContext): Command {
 export async function runCli(argv: string[], io: CliIo = { stdout: process.stdout, stderr: process.stderr }, signal?: AbortSignal): Promise<number> {
   const ctx = new CliContext(io, signal ?? new AbortController().signal);
   const program = buildProgram(ctx);
+  // options renamed in this release still work, with a note (src/cli/renamed-options.ts)
+  const args = renameOldOptions(argv, (text) => ctx.io.stderr.write(`plumbline: deprecated: ${text}\n`));
   try {
     // one set of limits for the whole command: the abort signal now, a deadline when the command parses one
-    await withLimits({ signal: ctx.signal }, () => program.parseAsync(argv, { from: "user" }));
+    await withLimits({ signal: ctx.signal }, () => program.parseAsync(args, { from: "user" }));
     return ctx.exitCode;
   } catch (e) {
     if (e instanceof CommanderError) {

@@ -23,7 +23,7 @@ export interface MeasureOptions {
   /** Reachable states allowed (default 250,000); more is a "limit" error (exit code 3). */
   maxStates?: number;
   diameter?: DiameterOptions;
-  /** Path extensions for the recurrence diameter search (default 2,000,000). */
+  /** Partial paths the recurrence diameter search may try (default 2,000,000). */
   maxPathNodes?: number;
   sublist?: SublistOptions;
   /**
@@ -55,7 +55,7 @@ export function reachableGraph(task: Task, maxStates = DEFAULT_MAX_STATES): Stat
   if (isExceeded(g))
     throw new PlumblineError(
       "limit",
-      `the task has more than ${maxStates} reachable states (stopped at ${g.statesSeen}); exact measures need the whole state graph — raise --max-states or measure a smaller instance`,
+      `the task has more than ${maxStates} reachable states (stopped at ${g.statesSeen}); exact measures need the whole state graph — raise --max-reachable-states or measure a smaller instance`,
       undefined,
       3,
     );

@@ -62,7 +62,7 @@ export function recurrenceDiameter(succ: number[][], upper: number, maxNodes: nu
         if (onPath[u]) continue;
         if (++nodes > maxNodes) {
           for (let d = 0; d <= depth; d++) onPath[stackV[d]] = 0;
-          return boundedMeasure(best, upper, `search stopped after ${maxNodes} path extensions; upper bound is the traversal diameter`);
+          return boundedMeasure(best, upper, `search stopped after ${maxNodes} partial paths tried; upper bound is the traversal diameter`);
         }
         depth++;
         stackV[depth] = u;

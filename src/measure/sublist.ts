@@ -7,7 +7,7 @@ import { poll } from "../util/limits.js";
 const INF = 0x3fffffff;
 
 export interface SublistOptions {
-  /** Run extensions explored in total (default 1,000,000). */
+  /** Partial paths (runs) tried in total (default 1,000,000). */
   maxNodes?: number;
   /** Largest states × actions successor table (default 5,000,000). */
   maxTable?: number;
@@ -100,7 +100,7 @@ export function sublistAndSubset(g: StateGraph, upper: number, opts: SublistOpti
     }
   }
   if (stopped) {
-    const why = `search stopped after ${maxNodes} run extensions; upper bound from the recurrence diameter`;
+    const why = `search stopped after ${maxNodes} partial paths tried; upper bound from the recurrence diameter`;
     return { sublist: boundedMeasure(sublistBest, upper, why), subset: boundedMeasure(subsetLower, upper, why) };
   }
   const sublist = exactMeasure(sublistBest);

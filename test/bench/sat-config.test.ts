@@ -46,7 +46,7 @@ describe("SAT configurations", () => {
     expect(solveGood).toEqual(["solve", join(dir, "d/domain.pddl"), join(dir, "d/good.pddl"), "--json", "--encoding", "forall-1", "--certificate", join(runDir, "certificate"), "--plan", join(runDir, "plan.txt"), "--time-limit", "40", "--memory-limit", "700"]);
     expect(calls.some((c) => c[0] === "solve" && c.includes("seq-1"))).toBe(true);
     expect(calls.filter((c) => c[0] === "audit").map((c) => c.slice(1))).toEqual(
-      expect.arrayContaining([[join(runDir, "certificate"), "--json", "--time-limit", "40"], [join(out, "runs/sat-seq/d/good/certificate"), "--json", "--time-limit", "40"], [join(out, "runs/sat-forall/d/bad/certificate"), "--json", "--time-limit", "40"]]),
+      expect.arrayContaining([[join(runDir, "certificate"), "--json", "--time-limit-per-certificate", "40"], [join(out, "runs/sat-seq/d/good/certificate"), "--json", "--time-limit-per-certificate", "40"], [join(out, "runs/sat-forall/d/bad/certificate"), "--json", "--time-limit-per-certificate", "40"]]),
     );
     const byId = new Map(r.records.map((x) => [x.id, x]));
     expect(byId.get("d/good@sat-forall")).toMatchObject({ status: "optimal", cost: 12, horizon: 11, planLength: 4, proofBytes: 1234, audit: "valid", auditReason: null });

@@ -64,7 +64,7 @@ describe("slurm export and merge", () => {
     expect(readFileSync(join(exp, "report.html"), "utf8")).toContain("plumbline bench: tiny");
 
     // the same suite run locally gives the same statuses and costs
-    const local = await cli(["bench", suite, "--out", join(dir, "local"), "--json", "--quiet"]);
+    const local = await cli(["bench", suite, "--output-dir", join(dir, "local"), "--json", "--quiet"]);
     expect(local.code, local.stderr).toBe(0);
     const localRecs = readResults(join(dir, "local", "results.jsonl"));
     expect(localRecs.map((r) => [r.id, r.status, r.cost])).toEqual(merged.map((r) => [r.id, r.status, r.cost]));

@@ -45,37 +45,37 @@ describe("plumbline horizon", () => {
     expect(j.methods.some((m: { method: string; value: unknown }) => m.method === j.winner && m.value === j.horizon)).toBe(true);
   });
 
-  it("takes --upper-bound and explains itself in plain text", async () => {
-    const r = await cli(["horizon", D, P, "--upper-bound", "2"]);
+  it("takes --cost-below and explains itself in plain text", async () => {
+    const r = await cli(["horizon", D, P, "--cost-below", "2"]);
     expect(r.code).toBe(0);
     expect(r.stdout).toMatch(/upper cost C\s+2/);
     expect(r.stdout).toMatch(/horizon\s+\d+ steps \(method: /);
-    const inf = await cli(["horizon", D, P, "--upper-bound", "inf", "--json"]);
+    const inf = await cli(["horizon", D, P, "--cost-below", "inf", "--json"]);
     expect(inf.json().upperCost).toBe("Infinity");
     expect(inf.json().winner).not.toBe("cost");
   });
 
   it("turns the exact search off with --max-optimal-states 0 and names every number in plain text", async () => {
-    const off = await cli(["horizon", D, P, "--upper-bound", "2", "--max-optimal-states", "0", "--json"]);
+    const off = await cli(["horizon", D, P, "--cost-below", "2", "--max-optimal-states", "0", "--json"]);
     expect(off.code).toBe(0);
     const exact = off.json().methods.find((m: { method: string }) => m.method === "explicit-optimal");
     expect(exact.value).toBeNull();
     expect(exact.derivation.notApplicable).toMatch(/disabled/);
     // still a completeness threshold: the only plan of cost < 2 has 6 actions (worked by hand)
     expect(off.json().horizon).toBeGreaterThanOrEqual(6);
-    const on = await cli(["horizon", D, P, "--upper-bound", "2"]);
+    const on = await cli(["horizon", D, P, "--cost-below", "2"]);
     expect(on.stdout).toMatch(/explicit-optimal\s+6\s+fewest actions among plans of the optimal cost 1/); // worked by hand
     expect(on.stdout).not.toMatch(/undefined/);
-    const text = await cli(["horizon", D, P, "--upper-bound", "2", "--max-optimal-states", "0"]);
+    const text = await cli(["horizon", D, P, "--cost-below", "2", "--max-optimal-states", "0"]);
     expect(text.stdout).toMatch(/zero-cost\s+\d+\s+k = \d+ positive-cost actions/);
     expect(text.stdout).not.toMatch(/undefined/);
     expect((await cli(["horizon", D, P, "--max-optimal-states", "-1"])).code).toBe(2);
   });
 
-  it("rejects a bad --upper-bound with exit code 2 and no stack trace", async () => {
-    const r = await cli(["horizon", D, P, "--upper-bound", "cheap"]);
+  it("rejects a bad --cost-below with exit code 2 and no stack trace", async () => {
+    const r = await cli(["horizon", D, P, "--cost-below", "cheap"]);
     expect(r.code).toBe(2);
-    expect(r.stderr).toMatch(/--upper-bound/);
+    expect(r.stderr).toMatch(/--cost-below/);
     expect(r.stderr).not.toMatch(/\n\s+at /);
   });
 });
@@ -91,11 +91,11 @@ describe("plumbline measure", () => {
     for (const k of ["diameter", "subsetDiameter", "sublistDiameter", "recurrenceDiameter", "traversalDiameter"]) expect(j[k]).toHaveProperty("value");
   });
 
-  it("stops with exit code 3 and a clear message past --max-states", async () => {
-    const r = await cli(["measure", D, P, "--max-states", "3"]);
+  it("stops with exit code 3 and a clear message past --max-reachable-states", async () => {
+    const r = await cli(["measure", D, P, "--max-reachable-states", "3"]);
     expect(r.code).toBe(3);
     expect(r.stderr).toMatch(/more than 3 reachable states/);
-    const bad = await cli(["measure", D, P, "--max-states", "many"]);
+    const bad = await cli(["measure", D, P, "--max-reachable-states", "many"]);
     expect(bad.code).toBe(2);
   });
 });

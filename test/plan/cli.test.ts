@@ -19,7 +19,7 @@ const noStack = (s: string) => expect(s).not.toMatch(/\n\s+at .*\(.*:\d+:\d+\)/)
 
 describe("plumbline ground", () => {
   it("--json prints the statistics under the contract's keys", async () => {
-    const r = await cli(["ground", ...G, "--json"]);
+    const r = await cli(["ground", ...G, "--json", "--no-relevance"]);
     expect(r.code).toBe(0);
     const j = r.json();
     expect(j).toMatchObject({ facts: 20, actions: 36, zeroCostActions: 0, conditionalEffects: 0, costModel: "unit", relevance: false });
@@ -35,11 +35,14 @@ describe("plumbline ground", () => {
     expect(new Set(col.slice(0, -1)).size).toBe(1);
   });
 
-  it("--relevance prunes (quay: fewer actions)", async () => {
-    const a = (await cli(["ground", ...Q, "--json"])).json();
-    const b = (await cli(["ground", ...Q, "--json", "--relevance"])).json();
+  it("prunes by goal relevance by default, as solve does; --no-relevance keeps everything (quay: fewer actions)", async () => {
+    const a = (await cli(["ground", ...Q, "--json", "--no-relevance"])).json();
+    const b = (await cli(["ground", ...Q, "--json"])).json();
+    expect(a.relevance).toBe(false);
     expect(b.relevance).toBe(true);
     expect(b.actions).toBeLessThan(a.actions);
+    // the old switch still works (pruning is the default now)
+    expect((await cli(["ground", ...Q, "--json", "--relevance"])).json()).toMatchObject({ relevance: true, actions: b.actions });
   });
 
   it("a missing file is exit 2 with the file named", async () => {

@@ -62,7 +62,7 @@ describe("plumbline report", () => {
     expect(r.code).toBe(2);
     expect(r.stderr).toContain(`${empty}: neither a bench results folder (results.jsonl) nor a certificate (certificate.json)`);
     writeFileSync(join(empty, "tasks.jsonl"), "");
-    expect((await cli(["report", empty])).stderr).toContain("run plumbline bench --merge");
+    expect((await cli(["report", empty])).stderr).toMatch(/run (npx )?plumbline bench --merge/);
     expect((await cli(["report", join(empty, "nope")])).code).toBe(2);
   });
 
@@ -82,7 +82,7 @@ describe("plumbline report", () => {
     const cj = JSON.parse(readFileSync(join(cert, "certificate.json"), "utf8"));
     cj.plan.cost -= 1;
     writeFileSync(join(cert, "certificate.json"), JSON.stringify(cj));
-    const bad = await cli(["report", cert, "--json", "--out", join(dir, "bad.html")]);
+    const bad = await cli(["report", cert, "--json", "--output", join(dir, "bad.html")]);
     expect(bad.code).toBe(1);
     expect(bad.json().audit).toBe("invalid");
     expect(bad.json().checks.some((c: { ok: boolean }) => !c.ok)).toBe(true);

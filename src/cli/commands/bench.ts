@@ -8,6 +8,7 @@ import { CONFIGURATIONS, DEFAULT_MEMORY_LIMIT, DEFAULT_TIME_LIMIT, exportSlurm, 
 import { PlumblineError } from "../../util/errors.js";
 import { positiveNumber } from "../options.js";
 import { withCommonOptions, type CliContext } from "../context.js";
+import { invocationName } from "../help.js";
 import { checkOutputs } from "../output-paths.js";
 
 interface BenchCliOptions {
@@ -15,10 +16,10 @@ interface BenchCliOptions {
   quiet?: boolean;
   verbose?: boolean;
   jobs?: string;
-  timeLimit?: string;
-  memoryLimit?: string;
+  timeLimitPerRun?: string;
+  memoryLimitPerRun?: string;
   config?: string[];
-  out?: string;
+  outputDir?: string;
   export?: string[];
   merge?: string;
   runTask?: string;
@@ -37,17 +38,16 @@ export function registerBench(program: Command, ctx: CliContext): void {
       .description(
         "run a benchmark suite: every (instance, configuration) pair in its own process under time and memory limits, N at a time. " +
           "Writes results.jsonl (one JSON object per run), summary.txt, coverage.svg, tightness.svg and report.html to the output folder; " +
-          "re-running with the same --out skips finished runs.\n" +
-          "SUITE is a suite JSON file, or a folder of PDDL: each folder holding domain.pddl contributes its other .pddl files, and domain-NN.pddl/problem-NN.pddl pairs also work.\n" +
-          `Configurations: ${CONFIGURATIONS.map((c) => `${c.name} (${c.summary})`).join("; ")}.\n` +
-          "Exit 0 done, 1 configurations contradict each other on a proven optimum or an audit rejected a certificate (a bug), 2 bad input, 3 interrupted.",
+          "re-running with the same --output-dir skips finished runs. " +
+          "SUITE is a suite JSON file, or a folder of PDDL: each folder holding domain.pddl contributes its other .pddl files, and domain-NN.pddl/problem-NN.pddl pairs also work. " +
+          `Configurations: ${CONFIGURATIONS.map((c) => `${c.name} (${c.summary})`).join("; ")}.`,
       )
       .argument("[suite]", "suite JSON file or folder of PDDL files")
       .option("--jobs <n>", "runs at the same time (default 1; keep it at or below the number of cores for fair times)")
-      .option("--time-limit <seconds>", `per run, passed to the run and enforced by killing it a little later (default: the suite's, else ${DEFAULT_TIME_LIMIT})`)
-      .option("--memory-limit <mb>", `resident memory per run in MB, enforced by a heap limit and by polling (default: the suite's, else ${DEFAULT_MEMORY_LIMIT})`)
+      .option("--time-limit-per-run <seconds>", `passed to each run and enforced by killing it a little later (default: the suite's, else ${DEFAULT_TIME_LIMIT})`)
+      .option("--memory-limit-per-run <MB>", `resident memory of each run, enforced by a heap limit and by polling (default: the suite's, else ${DEFAULT_MEMORY_LIMIT})`)
       .option("--config <names...>", "configurations to run instead of the suite's (space- or comma-separated; entries that name their own keep only these; put SUITE before this option)")
-      .option("--out <dir>", "output folder (default bench-results/<suite>-<date>-<time>); give the same folder again to resume")
+      .option("--output-dir <dir>", "output folder (default bench-results/<suite>-<date>-<time>); give the same folder again to resume")
       .option("--export <kind-and-dir...>", "instead of running: '--export slurm DIR' writes a job-array script (bench.sbatch), a task list and input copies to DIR")
       .option("--merge <dir>", "merge the per-task result files of an exported folder into DIR/results.jsonl and write the report")
       .option("--run-task <list>", "run one task of an exported task list (what each array task does); result in results/task-INDEX.jsonl next to the list")
@@ -58,8 +58,8 @@ export function registerBench(program: Command, ctx: CliContext): void {
     const configs = opts.config?.flatMap((c) => c.split(",")).filter(Boolean);
     const common = {
       jobs: positiveNumber("--jobs", opts.jobs, true),
-      timeLimit: positiveNumber("--time-limit", opts.timeLimit),
-      memoryLimit: positiveNumber("--memory-limit", opts.memoryLimit),
+      timeLimit: positiveNumber("--time-limit-per-run", opts.timeLimitPerRun),
+      memoryLimit: positiveNumber("--memory-limit-per-run", opts.memoryLimitPerRun),
       configs,
       graceSeconds: opts.grace === undefined ? undefined : positiveNumber("--grace", opts.grace),
       signal: ctx.signal,
@@ -93,12 +93,12 @@ export function registerBench(program: Command, ctx: CliContext): void {
       checkOutputs([{ flag: "--export slurm", path: dir, kind: "folder", reuseIf: (d) => existsSync(join(d, "tasks.jsonl")) }], [suite]);
       const e = exportSlurm({ suite, ...common }, dir);
       ctx.result({ dir: e.dir, tasks: e.tasks, script: e.script, taskList: e.taskList });
-      ctx.out(`exported ${e.tasks} runs to ${e.dir}\n  task list  ${e.taskList}\n  script     ${e.script}\nsubmit with: cd ${e.dir} && sbatch bench.sbatch   then: plumbline bench --merge ${e.dir}`);
+      ctx.out(`exported ${e.tasks} runs to ${e.dir}\n  task list  ${e.taskList}\n  script     ${e.script}\nsubmit with: cd ${e.dir} && sbatch bench.sbatch   then: ${invocationName()} bench --merge ${e.dir}`);
       return;
     }
-    const outDir = opts.out ?? `bench-results/${suite.replace(/\/+$/, "").split("/").pop()?.replace(/\.json$/i, "") ?? "suite"}-${stamp()}`;
+    const outDir = opts.outputDir ?? `bench-results/${suite.replace(/\/+$/, "").split("/").pop()?.replace(/\.json$/i, "") ?? "suite"}-${stamp()}`;
     // an existing folder is resumed when it holds an earlier run of this command
-    checkOutputs([{ flag: "--out", path: outDir, kind: "folder", reuseIf: (d) => existsSync(join(d, "results.jsonl")) || existsSync(join(d, "bench.json")) }], [suite]);
+    checkOutputs([{ flag: "--output-dir", path: outDir, kind: "folder", reuseIf: (d) => existsSync(join(d, "results.jsonl")) || existsSync(join(d, "bench.json")) }], [suite]);
     const r = await runBench({ suite, outDir, progress, ...common });
     for (const w of r.warnings) ctx.warn(w);
     ctx.exitCode = r.agreement.findings.length ? 1 : r.interrupted ? 3 : 0;

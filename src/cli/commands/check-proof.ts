@@ -13,11 +13,14 @@ interface CheckProofCliOptions {
   json?: boolean;
   quiet?: boolean;
   verbose?: boolean;
-  mode?: CheckMode;
-  format?: "drat" | "lrat";
-  lrat?: string;
+  lemmas?: "needed" | "all";
+  proofFormat?: "drat" | "lrat";
+  lratProof?: string;
   timeLimit?: string;
 }
+
+/** --lemmas needed|all → the checker's pass: needed lemmas found working backward, or every lemma forward. */
+const PASS: Record<"needed" | "all", CheckMode> = { needed: "backward", all: "forward" };
 
 export function registerCheckProof(program: Command, ctx: CliContext): void {
   withCommonOptions(
@@ -25,21 +28,24 @@ export function registerCheckProof(program: Command, ctx: CliContext): void {
       .command("check-proof")
       .description(
         "check a proof that a DIMACS CNF formula is unsatisfiable: a DRAT proof (RUP and RAT lemmas, deletions; binary or text, optionally gzip-compressed), " +
-          "or with --format lrat an LRAT proof (every lemma with its hint chain; checked by a separate, much simpler checker).\n" +
-          "Exit 0 proof valid, 1 proof rejected, 2 bad input, 3 time limit reached.",
+          "or with --proof-format lrat an LRAT proof (every lemma with its hint chain; checked by a separate, much simpler checker). " +
+          "A valid DRAT proof can be turned into an LRAT proof with --lrat-proof FILE.",
       )
       .argument("<cnf>", "DIMACS CNF file")
       .argument("<proof>", "proof file")
-      .addOption(new Option("--format <format>", "drat (default): a DRAT proof; lrat: a text LRAT proof").choices(["drat", "lrat"]).default("drat"))
+      .addOption(new Option("--proof-format <format>", "what PROOF holds: drat (default; binary or text, gzip or not, told apart by reading it) or lrat (text)").choices(["drat", "lrat"]).default("drat").helpGroup("The proof:"))
       .addOption(
-        new Option("--mode <mode>", "DRAT only. backward (default): check only the lemmas the refutation needs; forward: check every lemma up to the refutation").choices(["backward", "forward"]).default("backward"),
+        new Option("--lemmas <which>", "DRAT: needed (default) checks only the lemmas the refutation uses, found working back from the final conflict; all checks every lemma in order")
+          .choices(["needed", "all"])
+          .default("needed")
+          .helpGroup("Checking a DRAT proof:"),
       )
-      .option("--lrat <file>", "DRAT only, backward mode: when the proof is valid, also write an LRAT proof (text) of the refutation to this file")
-      .option("--time-limit <seconds>", "DRAT only: give up after this many seconds (exit 3)"),
+      .addOption(new Option("--time-limit <seconds>", "DRAT: give up after this many seconds (exit 3); the LRAT check always runs to the end").helpGroup("Checking a DRAT proof:"))
+      .addOption(new Option("--lrat-proof <file>", "DRAT, --lemmas needed: when the proof is valid, also write the refutation as a text LRAT proof to this file").helpGroup("Output:")),
   ).action((cnfPath: string, proofPath: string, opts: CheckProofCliOptions) => {
     ctx.configure(opts);
-    if (opts.format === "lrat") {
-      if (opts.lrat !== undefined) throw new PlumblineError("usage", "--lrat writes an LRAT proof from a DRAT proof; it cannot be combined with --format lrat");
+    if (opts.proofFormat === "lrat") {
+      if (opts.lratProof !== undefined) throw new PlumblineError("usage", "--lrat-proof writes an LRAT proof from a DRAT proof; it cannot be combined with --proof-format lrat");
       const cnf = readCnfForChecker(readBytes(cnfPath), cnfPath);
       for (const w of cnf.warnings) ctx.warn(w);
       const r = checkLrat(cnf, readBytes(proofPath));
@@ -50,17 +56,17 @@ export function registerCheckProof(program: Command, ctx: CliContext): void {
       ctx.result({ valid: r.valid, format: "lrat", ...(r.reason ? { reason: r.reason, line: r.line } : {}), stats: s, seconds: s.seconds });
       return;
     }
-    if (opts.lrat !== undefined && opts.mode === "forward") throw new PlumblineError("usage", "--lrat needs the backward mode");
-    checkOutputs([opts.lrat !== undefined ? { flag: "--lrat", path: opts.lrat, kind: "file" } : null], [cnfPath, proofPath]);
+    if (opts.lratProof !== undefined && opts.lemmas === "all") throw new PlumblineError("usage", "--lrat-proof needs --lemmas needed (the default): the LRAT proof is built from the lemmas the refutation uses");
+    checkOutputs([opts.lratProof !== undefined ? { flag: "--lrat-proof", path: opts.lratProof, kind: "file" } : null], [cnfPath, proofPath]);
     const deadline = deadlineFrom(opts.timeLimit);
-    const r = checkDratFiles(cnfPath, proofPath, { mode: opts.mode ?? "backward", deadline, signal: ctx.signal, lratFile: opts.lrat });
+    const r = checkDratFiles(cnfPath, proofPath, { mode: PASS[opts.lemmas ?? "needed"], deadline, signal: ctx.signal, lratFile: opts.lratProof });
     for (const w of r.warnings) ctx.warn(w);
     const stopped = !r.valid && (r.reason ?? "").startsWith("stopped");
     ctx.exitCode = r.valid ? 0 : stopped ? 3 : 1;
     const s = r.stats;
     if (r.valid) {
-      ctx.out(`proof valid: ${s.checkedLemmas} of ${s.lemmas} lemmas checked (${s.mode}), ${s.ratLemmas} by RAT, in ${s.seconds.toFixed(2)} s`);
-      if (opts.lrat !== undefined) ctx.out(`LRAT proof written to ${opts.lrat} (${s.lratLines} lines)`);
+      ctx.out(`proof valid: ${s.checkedLemmas} of ${s.lemmas} lemmas checked (${opts.lemmas === "all" ? "all lemmas" : "the lemmas the refutation needs"}), ${s.ratLemmas} by RAT, in ${s.seconds.toFixed(2)} s`);
+      if (opts.lratProof !== undefined) ctx.out(`LRAT proof written to ${opts.lratProof} (${s.lratLines} lines)`);
     } else {
       ctx.out(`proof ${stopped ? "not checked" : "rejected"}: ${r.reason}`);
     }
@@ -69,7 +75,8 @@ export function registerCheckProof(program: Command, ctx: CliContext): void {
       format: "drat",
       ...(r.reason ? { reason: r.reason } : {}),
       ...(r.failedLemma ? { failedLemma: r.failedLemma } : {}),
-      ...(r.valid && opts.lrat !== undefined ? { lrat: opts.lrat } : {}),
+      lemmas: opts.lemmas ?? "needed",
+      ...(r.valid && opts.lratProof !== undefined ? { lratProof: opts.lratProof } : {}),
       stats: s,
       seconds: s.seconds,
     });

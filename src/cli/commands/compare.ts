@@ -31,13 +31,13 @@ export function registerCompare(program: Command, ctx: CliContext): void {
     program
       .command("compare")
       .description(
-        "check another planner's plan: invalid (where it fails), optimal, suboptimal (by how much, with an optimal plan beside it)\n" +
-          "or undetermined (limit reached; our bounds). Exit 0 optimal, 1 invalid or suboptimal, 2 bad input, 3 undetermined.",
+        "check another planner's plan: invalid (where it fails), optimal, suboptimal (by how much, with an optimal plan beside it) " +
+          "or unknown (a limit was reached first; the bounds on the optimum are shown).",
       )
       .argument("<domain>", "PDDL domain file")
       .argument("<problem>", "PDDL problem file")
       .argument("<plan>", "the plan to judge: one (action object …) per line, ';' comments")
-      .option("--time-limit <seconds>", "stop proving after this many seconds (verdict undetermined, exit 3)"),
+      .option("--time-limit <seconds>", "stop after this many seconds (verdict unknown, exit 3)"),
   ).action(async (domain: string, problem: string, planPath: string, opts: { json?: boolean; quiet?: boolean; verbose?: boolean; timeLimit?: string }) => {
     ctx.configure(opts);
     // the limit bounds the proving (documented: "stop proving"); reading and grounding the model come first

@@ -44,8 +44,8 @@ export function registerEncode(program: Command, ctx: CliContext): void {
     program
       .command("encode")
       .description(
-        "write the planning CNF (DIMACS) the optimizer builds: the task after goal-relevance pruning and analysis, unrolled to T steps,\n" +
-          "with its cost encoding; with --cost-below C, unit clauses ask for a plan of cost ≤ C − 1. Satisfiable exactly when such a plan\n" +
+        "write the planning CNF (DIMACS) the optimizer builds: the task after goal-relevance pruning and analysis, unrolled to T steps, " +
+          "with its cost encoding; with --cost-below C, unit clauses ask for a plan of cost ≤ C − 1. Satisfiable exactly when such a plan " +
           "of at most T steps exists. Comment lines name the parameters and where the fact and action variables are.",
       )
       .argument("<domain>", "PDDL domain file")
@@ -54,8 +54,8 @@ export function registerEncode(program: Command, ctx: CliContext): void {
       .option("--cost-below <C>", "add unit clauses for 'plan cost ≤ C − 1' (without it: any plan within T steps)")
       .option(
         "--encoding <id>",
-        `step encoding seq-1, forall-1 or forall-2 (default ${DEFAULT_ENCODING}; the cost encoding is then chosen by size and the parts reach-1 and\n` +
-          "empty-steps-last-1 are included, as solve does), or a full formula id such as forall-1+cost-unary-1+reach-1+empty-steps-last-1\n" +
+        `step encoding seq-1, forall-1 or forall-2 (default ${DEFAULT_ENCODING}; the cost encoding is then chosen by size and the parts reach-1 and ` +
+          "empty-steps-last-1 are included, as solve does), or a full formula id such as forall-1+cost-unary-1+reach-1+empty-steps-last-1 " +
           "(as a certificate records it; forall-1+cost-adder-1+empty-steps-last-1 is what solve built before cost-unary-1 and reach-1 existed)",
       )
       .option("--plain", "leave out the optional parts (reach-1 pruning, empty-steps-last-1 ordering): step encoding and cost encoding only")

@@ -1,6 +1,6 @@
 // `plumbline ground DOMAIN PROBLEM`: grounds a model and prints its size (facts, actions,
 // zero-cost actions, conditional effects, seconds); wiring only, the work is in src/ground.
-import type { Command } from "commander";
+import { Option, type Command } from "commander";
 import { groundFiles, groundStats } from "../../ground/index.js";
 import { withCommonOptions, type CliContext } from "../context.js";
 import { deadlineFrom } from "../options.js";
@@ -12,14 +12,16 @@ export function registerGround(program: Command, ctx: CliContext): void {
       .description("ground a PDDL model and print its size: facts, actions, zero-cost actions, conditional effects, seconds")
       .argument("<domain>", "PDDL domain file")
       .argument("<problem>", "PDDL problem file")
-      .option("--relevance", "also prune actions and facts that cannot matter for the goal (backward relevance)")
+      .addOption(new Option("--relevance", "prune actions and facts that cannot matter for the goal (the default now)").hideHelp())
+      .option("--no-relevance", "keep actions and facts that cannot matter for the goal (by default they are pruned, as solve does)")
       .option("--time-limit <seconds>", "stop after this many seconds (exit 3)"),
   ).action((domain: string, problem: string, opts: { json?: boolean; quiet?: boolean; verbose?: boolean; relevance?: boolean; timeLimit?: string }) => {
     ctx.configure(opts);
     deadlineFrom(opts.timeLimit);
-    const { task, seconds } = groundFiles(domain, problem, { relevance: !!opts.relevance });
+    const relevance = opts.relevance !== false;
+    const { task, seconds } = groundFiles(domain, problem, { relevance });
     const st = groundStats(task, Number(seconds.toFixed(3)));
-    ctx.result({ ...st, domain: task.domainName, problem: task.problemName, costModel: task.costModel, relevance: !!opts.relevance, goalFacts: task.goal.length + task.goalNeg.length });
+    ctx.result({ ...st, domain: task.domainName, problem: task.problemName, costModel: task.costModel, relevance, goalFacts: task.goal.length + task.goalNeg.length });
     const rows: Array<[string, string]> = [
       ["domain", task.domainName],
       ["problem", task.problemName],

@@ -6,17 +6,17 @@ import { checkUpperCost, computeHorizon, horizonReportJson, HORIZON_DEFAULTS, ty
 import { gbfs } from "../../search/index.js";
 import { PlumblineError } from "../../util/errors.js";
 import { withCommonOptions, type CliContext } from "../context.js";
-import { deadlineFrom, positiveOption } from "../options.js";
+import { capOption, deadlineFrom, positiveOption } from "../options.js";
 
 interface HorizonCliOptions {
   json?: boolean;
   quiet?: boolean;
   verbose?: boolean;
-  upperBound?: string;
+  costBelow?: string;
   timeLimit?: string;
   relevance?: boolean;
   maxProjectionStates?: string;
-  maxExplicitStates?: string;
+  maxReachableStates?: string;
   maxOptimalStates?: string;
 }
 
@@ -25,16 +25,16 @@ export function registerHorizon(program: Command, ctx: CliContext): void {
     program
       .command("horizon")
       .description(
-        "completeness thresholds for 'is there a plan cheaper than C?': by every method, with the numbers each was derived from, and the smallest as the horizon.\n" +
-          "Without --upper-bound, C is the cost of a first plan found by greedy best-first search.",
+        "completeness thresholds for 'is there a plan cheaper than C?': by every method, with the numbers each was derived from, and the smallest as the horizon. " +
+          "Without --cost-below, C is the cost of a first plan found by greedy best-first search.",
       )
       .argument("<domain>", "PDDL domain file")
       .argument("<problem>", "PDDL problem file")
-      .option("--upper-bound <C>", "cost of a known plan: bound plans cheaper than C (a whole number; 'inf' bounds plan existence)")
-      .option("--time-limit <seconds>", "stop after this many seconds (exit 3); the first-plan search, when --upper-bound is not given, gets at most half of it")
+      .option("--cost-below <C>", "bound plans cheaper than C, e.g. the cost of a known plan (a whole number; 'inf' bounds plan existence)")
+      .option("--time-limit <seconds>", "stop after this many seconds (exit 3); the first-plan search, when --cost-below is not given, gets at most half of it")
       .option("--no-relevance", "do not prune actions and facts irrelevant to the goal before bounding")
       .option("--max-projection-states <n>", `states explored per projection before using domain sizes (default ${HORIZON_DEFAULTS.maxProjectionStates})`)
-      .option("--max-explicit-states <n>", `reachable states explored for the explicit method (default ${HORIZON_DEFAULTS.maxExplicitStates})`)
+      .option("--max-reachable-states <n>", `reachable states the reachable-states method may explore; 0 turns that method off (default ${HORIZON_DEFAULTS.maxExplicitStates})`)
       .option(
         "--max-optimal-states <n>",
         `states the exact search for the fewest actions among cheapest plans may store; 0 turns that method off (default ${HORIZON_DEFAULTS.maxOptimalStates})`,
@@ -42,19 +42,19 @@ export function registerHorizon(program: Command, ctx: CliContext): void {
   ).action((domain: string, problem: string, opts: HorizonCliOptions) => {
     ctx.configure(opts);
     const maxProjectionStates = positiveOption("--max-projection-states", opts.maxProjectionStates, HORIZON_DEFAULTS.maxProjectionStates);
-    const maxExplicitStates = positiveOption("--max-explicit-states", opts.maxExplicitStates, HORIZON_DEFAULTS.maxExplicitStates);
-    const maxOptimalStates = opts.maxOptimalStates === "0" ? 0 : positiveOption("--max-optimal-states", opts.maxOptimalStates, HORIZON_DEFAULTS.maxOptimalStates);
+    const maxExplicitStates = capOption("--max-reachable-states", opts.maxReachableStates, HORIZON_DEFAULTS.maxExplicitStates);
+    const maxOptimalStates = capOption("--max-optimal-states", opts.maxOptimalStates, HORIZON_DEFAULTS.maxOptimalStates);
     let upper: number | null = null;
-    if (opts.upperBound !== undefined) {
-      upper = /^(inf|infinity)$/i.test(opts.upperBound) ? Number.POSITIVE_INFINITY : Number(opts.upperBound);
-      if (!(upper === Number.POSITIVE_INFINITY || /^\d+$/.test(opts.upperBound)))
-        throw new PlumblineError("usage", `--upper-bound expects a non-negative whole number or 'inf', found '${opts.upperBound}'`);
+    if (opts.costBelow !== undefined) {
+      upper = /^(inf|infinity)$/i.test(opts.costBelow) ? Number.POSITIVE_INFINITY : Number(opts.costBelow);
+      if (!(upper === Number.POSITIVE_INFINITY || /^\d+$/.test(opts.costBelow)))
+        throw new PlumblineError("usage", `--cost-below expects a non-negative whole number or 'inf', found '${opts.costBelow}'`);
       checkUpperCost(upper);
     }
     const deadline = deadlineFrom(opts.timeLimit);
     const { task, seconds } = groundFiles(domain, problem);
     ctx.note(`grounded ${task.facts.length} facts, ${task.actions.length} actions in ${seconds.toFixed(2)} s`);
-    let source = "--upper-bound";
+    let source = "--cost-below";
     let firstPlan: { status: string; cost: number | null; length: number | null } | null = null;
     if (upper === null) {
       const r = gbfs(task, { deadline: deadline === undefined ? undefined : Date.now() + (deadline - Date.now()) / 2, signal: ctx.signal });

@@ -19,4 +19,5 @@ import { registerRejudge } from "./rejudge.js";
 
 export type RegisterCommand = (program: Command, ctx: CliContext) => void;
 
-export const commands: RegisterCommand[] = [registerGround, registerReplay, registerSearch, registerCompare, registerHorizon, registerMeasure, registerSat, registerCheckProof, registerBench, registerReport, registerSolve, registerAudit, registerRejudge, registerEncode];
+/** Registration order; the top-level help groups and orders them itself (src/cli/help.ts). */
+export const commands: RegisterCommand[] = [registerSolve, registerAudit, registerCompare, registerRejudge, registerReplay, registerSearch, registerGround, registerHorizon, registerMeasure, registerEncode, registerSat, registerCheckProof, registerBench, registerReport];

@@ -10,8 +10,8 @@ interface MeasureCliOptions {
   json?: boolean;
   quiet?: boolean;
   verbose?: boolean;
-  maxStates?: string;
-  maxSearch?: string;
+  maxReachableStates?: string;
+  maxPaths?: string;
   timeLimit?: string;
 }
 
@@ -25,18 +25,17 @@ export function registerMeasure(program: Command, ctx: CliContext): void {
     program
       .command("measure")
       .description(
-        "exact measures of the reachable state graph of a small task: diameter, subset, sublist, recurrence and traversal diameters, optimal cost and the shortest optimal plan length.\n" +
-          "Exit 3 when the task has more reachable states than --max-states.",
+        "exact measures of the reachable state graph of a small task: diameter, subset, sublist, recurrence and traversal diameters, optimal cost and the shortest optimal plan length.",
       )
       .argument("<domain>", "PDDL domain file")
       .argument("<problem>", "PDDL problem file")
-      .option("--max-states <n>", `largest reachable state space to explore (default ${DEFAULT_MAX_STATES})`)
-      .option("--max-search <n>", "run extensions allowed for each exhaustive search (recurrence, sublist, subset); past it, bounds are reported (default 2000000)")
+      .option("--max-reachable-states <n>", `largest reachable state space to explore (default ${DEFAULT_MAX_STATES})`)
+      .option("--max-paths <n>", "partial paths each exhaustive search (recurrence, sublist and subset diameters) may try; past it, bounds are reported (default 2000000)")
       .option("--time-limit <seconds>", "stop after this many seconds (exit 3)"),
   ).action((domain: string, problem: string, opts: MeasureCliOptions) => {
     ctx.configure(opts);
-    const maxStates = positiveOption("--max-states", opts.maxStates, DEFAULT_MAX_STATES);
-    const maxSearch = positiveOption("--max-search", opts.maxSearch, 2_000_000);
+    const maxStates = positiveOption("--max-reachable-states", opts.maxReachableStates, DEFAULT_MAX_STATES);
+    const maxSearch = positiveOption("--max-paths", opts.maxPaths, 2_000_000);
     deadlineFrom(opts.timeLimit);
     const { task, seconds } = groundFiles(domain, problem);
     ctx.note(`grounded ${task.facts.length} facts, ${task.actions.length} actions in ${seconds.toFixed(2)} s; exploring up to ${maxStates} states`);

@@ -3,6 +3,7 @@
 import type { Command } from "commander";
 import { rejudge, type RejudgeResult } from "../../certify/index.js";
 import { withCommonOptions, type CliContext } from "../context.js";
+import { invocationName } from "../help.js";
 import { deadlineFrom, positiveNumber } from "../options.js";
 import { checkOutputs, isCertificateFolder } from "../output-paths.js";
 
@@ -41,11 +42,10 @@ export function registerRejudge(program: Command, ctx: CliContext): void {
     program
       .command("rejudge")
       .description(
-        "re-judge a certificate's recorded plan against a changed model (the files not given are the certificate's own):\n" +
-          "unchanged (same model up to whitespace, comments and case: the certificate is re-audited), plan no longer valid\n" +
-          "(first failing step and unmet condition), cost changed (old and new cost), still optimal (proven again, starting\n" +
-          "from the recorded plan so only the final refutation is left), or a cheaper plan (its plan and cost).\n" +
-          "Exit 0 unchanged and valid or still optimal, 1 any other verdict, 2 bad input, 3 a limit stopped it.",
+        "re-judge a certificate's recorded plan against a changed model (the files not given are the certificate's own): " +
+          "unchanged (same model up to whitespace, comments and case: the certificate is re-audited), plan-invalid " +
+          "(the first failing action and unmet condition), cost-changed (old and new cost), still-optimal (proven again, starting " +
+          "from the recorded plan so only the final refutation is left), cheaper-plan (its plan and cost), or undecided (a limit stopped the proof).",
       )
       .argument("<cert-dir>", "certificate folder written by 'solve --certificate' (holds certificate.json)")
       .option("--domain <file>", "the new domain file (default: the certificate's domain.pddl)")
@@ -97,7 +97,7 @@ export function registerRejudge(program: Command, ctx: CliContext): void {
     if (r.audit && !r.audit.valid) for (const c of r.audit.checks) if (!c.ok && !c.skipped) lines.push(`FAIL  ${c.name}: ${c.detail}`);
     for (const u of r.reuse) lines.push(`${u.reused ? "reused" : "not reused"}: ${u.part} — ${u.why}`);
     for (const n of r.notes) lines.push(`note: ${n}`);
-    if (r.certificate) lines.push(`certificate written to ${r.certificate} (check it with: plumbline audit ${r.certificate})`);
+    if (r.certificate) lines.push(`certificate written to ${r.certificate} (check it with: ${invocationName()} audit ${r.certificate})`);
     lines.push(`(${r.seconds.toFixed(2)} s; plans are only as good as the model: re-judging says nothing about what the model leaves out)`);
     ctx.out(lines.join("\n"));
   });

@@ -10,13 +10,14 @@ import { auditViewOf, certificateReportHtml, singleAuditJson, detectReportDir, f
 import { PlumblineError } from "../../util/errors.js";
 import { writeFileAtomic } from "../../util/files.js";
 import { withCommonOptions, type CliContext } from "../context.js";
+import { invocationName } from "../help.js";
 import { checkOutputs } from "../output-paths.js";
 
 interface ReportCliOptions {
   json?: boolean;
   quiet?: boolean;
   verbose?: boolean;
-  out?: string;
+  output?: string;
   audit?: boolean;
   timeLimit?: string;
 }
@@ -26,20 +27,19 @@ export function registerReport(program: Command, ctx: CliContext): void {
     program
       .command("report")
       .description(
-        "write a self-contained HTML report (no scripts, no network) of a bench results folder or of a certificate folder.\n" +
-          "Bench folder: tables, coverage over time, cost agreement, bounds over time, horizon tightness (report.html in the folder).\n" +
-          "Certificate: the audit verdict, the plan as a timeline, bound convergence, the horizon derivation (DIR.report.html beside it).\n" +
-          "Exit 0 written, 1 configurations disagree on a proven optimum or the audit rejected the certificate, 2 bad input.",
+        "write a self-contained HTML report (no scripts, no network) of a bench results folder or of a certificate folder. " +
+          "Bench folder: tables, coverage over time, cost agreement, bounds over time, horizon tightness (report.html in the folder). " +
+          "Certificate: the audit verdict, the plan as a timeline, bound convergence, the horizon derivation (DIR.report.html beside it).",
       )
       .argument("<dir>", "bench results folder (holds results.jsonl) or certificate folder (holds certificate.json)")
-      .option("--out <file>", "where to write the HTML (default: DIR/report.html for a bench folder, DIR.report.html for a certificate)")
+      .option("-o, --output <file>", "where to write the HTML (default: DIR/report.html for a bench folder, DIR.report.html for a certificate)")
       .option("--no-audit", "certificate: do not run audit; show the audit recorded next to it by bench, if any")
-      .option("--time-limit <seconds>", "certificate: give up checking the proof after this many seconds (default 600; the audit then shows as not passed)"),
+      .option("--time-limit <seconds>", "certificate: stop the audit after this many seconds (default 600; the audit is then unfinished)"),
   ).action(async (dir: string, opts: ReportCliOptions) => {
     ctx.configure(opts);
-    checkOutputs([opts.out !== undefined ? { flag: "--out", path: opts.out, kind: "file" } : null], [dir]);
+    checkOutputs([opts.output !== undefined ? { flag: "--output", path: opts.output, kind: "file" } : null], [dir]);
     const kind = detectReportDir(dir);
-    if (kind === "export") throw new PlumblineError("usage", `${dir} is an exported job array without merged results: run plumbline bench --merge ${dir} first`);
+    if (kind === "export") throw new PlumblineError("usage", `${dir} is an exported job array without merged results: run ${invocationName()} bench --merge ${dir} first`);
     if (kind === "bench") {
       const records = latestById(readResults(join(dir, "results.jsonl")));
       const metaFile = join(dir, "bench.json");
@@ -48,9 +48,9 @@ export function registerReport(program: Command, ctx: CliContext): void {
         : { suite: basename(resolve(dir)), suiteFile: "", configurations: [...new Set(records.map((r) => r.configuration))], timeLimit: Math.max(0, ...records.map((r) => r.timeLimit)), memoryLimit: Math.max(0, ...records.map((r) => r.memoryLimit)), jobs: 1, createdAt: "", toolVersion: "", node: "", host: "", cpus: 0, runs: records.length };
       const w = writeBenchReport(dir, records, meta);
       let html = w.html;
-      if (opts.out) {
-        writeFileAtomic(opts.out, readFileSync(w.html, "utf8"));
-        html = resolve(opts.out);
+      if (opts.output) {
+        writeFileAtomic(opts.output, readFileSync(w.html, "utf8"));
+        html = resolve(opts.output);
       }
       ctx.exitCode = w.agreement.findings.length ? 1 : 0;
       ctx.result({ kind, report: html, runs: records.length, findings: w.agreement.findings });
@@ -69,7 +69,7 @@ export function registerReport(program: Command, ctx: CliContext): void {
       const r = auditCertificate(dir, { deadline: Date.now() + limit * 1000, signal: ctx.signal });
       audit = auditViewOf({ valid: r.valid, finished: r.finished, checks: r.checks }, "run", r.seconds);
     }
-    const out = opts.out ?? `${resolve(dir).replace(/\/+$/, "")}.report.html`;
+    const out = opts.output ?? `${resolve(dir).replace(/\/+$/, "")}.report.html`;
     writeFileAtomic(out, certificateReportHtml(view, audit));
     ctx.exitCode = audit.status === "invalid" ? 1 : 0;
     ctx.result({ kind, report: resolve(out), audit: audit.status, checks: audit.checks, plan: view.plan ? view.plan.length : null, planNote: view.planNote });

@@ -12,7 +12,7 @@ interface SatCliOptions {
   quiet?: boolean;
   verbose?: boolean;
   proof?: string;
-  proofFormat?: ProofFormat;
+  proofFormat?: "drat-binary" | "drat-text";
   timeLimit?: string;
   conflicts?: string;
   sat?: string;
@@ -47,12 +47,12 @@ export function registerSat(program: Command, ctx: CliContext): void {
     program
       .command("sat")
       .description(
-        "solve a DIMACS CNF file with the built-in CDCL SAT solver (or an external one), optionally writing a DRAT proof of unsatisfiability.\n" +
-          "Prints 's SATISFIABLE' with 'v' lines, 's UNSATISFIABLE' or 's UNKNOWN'. Exit 0 on an answer, 2 bad input, 3 limit reached.",
+        "solve a DIMACS CNF file with the built-in CDCL SAT solver (or an external one), optionally writing a DRAT proof of unsatisfiability. " +
+          "Prints 's SATISFIABLE' with 'v' lines, 's UNSATISFIABLE' or 's UNKNOWN'.",
       )
       .argument("<cnf>", "DIMACS CNF file")
       .option("--proof <file>", "write a DRAT proof to this file when the answer is UNSATISFIABLE (no file otherwise)")
-      .addOption(new Option("--proof-format <format>", "proof encoding: binary (default, compact) or text").choices(["binary", "text"]).default("binary"))
+      .addOption(new Option("--proof-format <format>", "drat-binary (default, compact) or drat-text").choices(["drat-binary", "drat-text"]).default("drat-binary"))
       .option("--time-limit <seconds>", "give up after this many seconds (status unknown, exit 3)")
       .option("--conflicts <n>", "give up after this many conflicts (status unknown, exit 3)")
       .option("--sat <solver>", "builtin (default), or external:CMD to run a DIMACS solver on PATH; '{cnf}' and '{proof}' in CMD stand for the file paths", "builtin")
@@ -67,7 +67,7 @@ export function registerSat(program: Command, ctx: CliContext): void {
     }
     const engine = opts.sat ?? "builtin";
     if (engine !== "builtin" && !engine.startsWith("external:")) throw new PlumblineError("usage", `--sat expects builtin or external:CMD, found '${engine}'`);
-    const format: ProofFormat = opts.proofFormat ?? "binary";
+    const format: ProofFormat = opts.proofFormat === "drat-text" ? "text" : "binary";
     checkOutputs([opts.proof !== undefined ? { flag: "--proof", path: opts.proof, kind: "file" } : null], [cnfPath]);
     const t0 = performance.now();
     const cnf = readDimacsFile(cnfPath);
@@ -78,7 +78,8 @@ export function registerSat(program: Command, ctx: CliContext): void {
     let status: SolveStatus;
     let model: Int8Array | undefined;
     let stats: Record<string, unknown>;
-    let proofInfo: { file: string; format: ProofFormat; bytes: number } | null = null;
+    const formatWord = format === "text" ? "drat-text" : "drat-binary";
+    let proofInfo: { file: string; format: typeof formatWord; bytes: number } | null = null;
     if (engine === "builtin") {
       const writer = opts.proof ? new FileProofWriter(opts.proof, format) : null;
       try {
@@ -90,7 +91,7 @@ export function registerSat(program: Command, ctx: CliContext): void {
         if (writer) {
           if (status === "unsat") {
             writer.close();
-            proofInfo = { file: opts.proof as string, format, bytes: writer.size };
+            proofInfo = { file: opts.proof as string, format: formatWord, bytes: writer.size };
           } else {
             writer.abort();
             ctx.note(`no proof written: the answer is ${WORD[status]}`);
@@ -110,7 +111,7 @@ export function registerSat(program: Command, ctx: CliContext): void {
       status = r.status;
       model = r.model;
       stats = { command: r.command.join(" "), exitCode: r.exitCode, seconds: r.seconds };
-      if (r.proofPath) proofInfo = { file: r.proofPath, format, bytes: 0 };
+      if (r.proofPath) proofInfo = { file: r.proofPath, format: formatWord, bytes: 0 };
     }
     const seconds = (performance.now() - t0) / 1000;
     ctx.exitCode = status === "unknown" ? 3 : 0;

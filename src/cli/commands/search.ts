@@ -31,8 +31,7 @@ export function registerSearch(program: Command, ctx: CliContext): void {
     program
       .command("search")
       .description(
-        "find a plan by explicit-state search: A* (optimal) by default, or greedy best-first (--greedy) for a quick first plan.\n" +
-          "Exit 0 plan found or proven unsolvable, 2 bad input, 3 limit reached.",
+        "find a plan by explicit-state search: A* (optimal, proven by exhaustive-search) by default, or greedy best-first (--greedy) for a quick first plan.",
       )
       .argument("<domain>", "PDDL domain file")
       .argument("<problem>", "PDDL problem file")

@@ -8,6 +8,7 @@ import { writeFileAtomic } from "../../util/files.js";
 import { positiveNumber } from "../options.js";
 import { checkOutputs, isCertificateFolder } from "../output-paths.js";
 import { withCommonOptions, type CliContext } from "../context.js";
+import { invocationName } from "../help.js";
 
 interface SolveCliOptions {
   json?: boolean;
@@ -45,10 +46,10 @@ export function registerSolve(program: Command, ctx: CliContext): void {
     program
       .command("solve")
       .description(
-        "find a cost-optimal plan and prove it: SAT queries 'is there a cheaper plan?' until one is unsatisfiable (DRAT proof) — first\n" +
-          "with a few real steps and a relaxed suffix (a proof at any plan length), then at a proven completeness threshold — or a\n" +
-          "landmark lower bound equal to the plan's cost. Status optimal, feasible (plan, no proof),\n" +
-          "unsolvable (proven) or unknown. Exit 0 optimal/unsolvable, 2 bad input, 3 limit reached (the best plan is still written).",
+        "find a cost-optimal plan and prove it: SAT queries 'is there a cheaper plan?' until one is unsatisfiable (DRAT proof) — first " +
+          "with a few real steps and a relaxed suffix (a proof at any plan length), then at a proven completeness threshold — or a " +
+          "landmark lower bound equal to the plan's cost. Status optimal, feasible (a plan, not proven optimal), " +
+          "unsolvable (proven) or unknown (no plan found before a limit).",
       )
       .argument("<domain>", "PDDL domain file")
       .argument("<problem>", "PDDL problem file")
@@ -58,8 +59,8 @@ export function registerSolve(program: Command, ctx: CliContext): void {
       .option("--memory-limit <MB>", "stop when resident memory passes this many MB, and build no formula estimated to need more")
       .option(
         "--encoding <id>",
-        `encoding of the SAT formulas: a step encoding — forall-1 (parallel steps, default ${DEFAULT_ENCODING}), seq-1 (one action per step) or forall-2 —\n` +
-          "with the cost encoding chosen by size and the parts reach-1 and empty-steps-last-1; or a full formula id such as\n" +
+        `encoding of the SAT formulas: a step encoding — forall-1 (parallel steps, default ${DEFAULT_ENCODING}), seq-1 (one action per step) or forall-2 — ` +
+          "with the cost encoding chosen by size and the parts reach-1 and empty-steps-last-1; or a full formula id such as " +
           "forall-1+cost-unary-1+reach-1+empty-steps-last-1 (step+cost+parts, as certificates record it)",
       )
       .option("--no-suffix", "prove only at completeness thresholds (no relaxed-suffix formulas at short horizons)")
@@ -115,7 +116,7 @@ export function registerSolve(program: Command, ctx: CliContext): void {
         horizonMethod: out.horizonWinner,
         thresholdAvoided: out.thresholdAvoided,
         encoding: out.encoding,
-        proof: out.proof ? { kind: "drat", file: certificate ? `${certificate}/proof.drat.gz` : null, bytes: out.proof.bytes, format: out.proof.format, engine: out.proof.engine } : out.how === "lower-bound" ? { kind: "landmarks", file: certificate ? `${certificate}/landmarks.json` : null, bytes: null } : null,
+        proof: out.proof ? { kind: "drat", file: certificate ? `${certificate}/proof.drat.gz` : null, bytes: out.proof.bytes, format: `drat-${out.proof.format}`, engine: out.proof.engine } : out.how === "lower-bound" ? { kind: "landmarks", file: certificate ? `${certificate}/landmarks.json` : null, bytes: null } : null,
         certificate,
         planFile: opts.plan && out.plan ? opts.plan : null,
         seconds: out.seconds,
@@ -134,7 +135,7 @@ export function registerSolve(program: Command, ctx: CliContext): void {
       if (out.how === "suffix-unsat") lines.push("", `proved at horizon ${out.horizon} with a relaxed suffix${out.thresholdAvoided !== null ? ` (a completeness threshold would have needed ${out.thresholdAvoided})` : ""}`);
       else if (out.horizon !== null && out.how !== "lower-bound") lines.push("", `horizon: ${out.horizon}${out.horizonWinner ? ` (${out.horizonWinner} bound)` : ""}${out.status === "feasible" || out.status === "unknown" ? " — what a proof would need" : ""}`);
       for (const n of out.notes) lines.push(`note: ${n}`);
-      if (certificate) lines.push(`certificate written to ${certificate} (check it with: plumbline audit ${certificate})`);
+      if (certificate) lines.push(`certificate written to ${certificate} (check it with: ${invocationName()} audit ${certificate})`);
       lines.push("", CAUTION);
       ctx.out(lines.join("\n"));
     } finally {
