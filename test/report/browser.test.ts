@@ -1,7 +1,8 @@
 // End to end in a real browser: the bench report and a certificate report open in headless
 // Chromium (Debian's /usr/bin/chromium, driven by playwright-core) with no network request,
 // no console error, visible tables, and every SVG rendered with a real size and accepted by
-// the browser's own XML parser. Skipped, and says so, where Chromium is not installed.
+// the browser's own XML parser. Skipped, and says so, where Chromium is not installed (a failure
+// instead with PLUMBLINE_REQUIRE_BROWSER=1, as CI sets it).
 import { existsSync, mkdtempSync, statSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
@@ -15,7 +16,15 @@ import { META, rec } from "./records.js";
 
 const CHROMIUM = "/usr/bin/chromium";
 const have = existsSync(CHROMIUM);
-if (!have) console.warn(`browser test skipped: ${CHROMIUM} not found (install Debian's chromium package to run it)`);
+// CI (.ci/run) sets PLUMBLINE_REQUIRE_BROWSER=1: there a missing browser is a failure, not a skip
+const required = process.env.PLUMBLINE_REQUIRE_BROWSER === "1";
+if (!have) console.warn(`browser test ${required ? "cannot run" : "skipped"}: ${CHROMIUM} not found (install Debian's chromium package to run it)`);
+
+describe.runIf(required && !have)("reports in headless Chromium (required by PLUMBLINE_REQUIRE_BROWSER=1)", () => {
+  it("finds the browser", () => {
+    expect(existsSync(CHROMIUM), `${CHROMIUM} is missing: .ci/run installs it with apt-get install chromium`).toBe(true);
+  });
+});
 
 async function openPage(file: string): Promise<{ ctx: BrowserContext; page: Page; requests: string[]; failed: string[]; errors: string[] }> {
   const ctx = await chromium.launchPersistentContext(mkdtempSync(join(tmpdir(), "plumbline-chromium-")), {
