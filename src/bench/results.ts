@@ -1,7 +1,7 @@
 // results.jsonl: one JSON object per finished run, appended as each run ends, so a bench
 // that stops half-way keeps what it finished and a re-run skips those runs.
 import { appendFileSync, existsSync, readFileSync } from "node:fs";
-import type { RunRecord } from "../report/record.js";
+import { auditStatusOf, type RunRecord } from "../report/record.js";
 import { PlumblineError } from "../util/errors.js";
 import { writeFileAtomic } from "../util/files.js";
 
@@ -19,7 +19,10 @@ export function readResults(file: string, repair = false): RunRecord[] {
     const line = lines[i];
     if (!line.trim()) continue;
     try {
-      records.push(JSON.parse(line) as RunRecord);
+      const r = JSON.parse(line) as RunRecord;
+      // results written before this release used "invalid" and "unknown" for audits
+      if (typeof r.audit === "string") r.audit = auditStatusOf(r.audit);
+      records.push(r);
     } catch {
       const isLast = i === lines.length - 1 && !text.endsWith("\n");
       if (isLast) {

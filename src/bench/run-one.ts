@@ -81,13 +81,13 @@ async function auditCertificate(certDir: string, opts: RunOptions, runDir: strin
 /** valid / invalid from the audit's JSON and exit code; anything else is unknown with a reason. */
 export function interpretAudit(o: ChildOutcome): AuditOutcome {
   const json = singleAuditJson(o.stdout);
-  if (o.killed) return { audit: "unknown", seconds: o.seconds, reason: `audit killed (${o.killed} limit)` };
-  if (o.exitCode === 3) return { audit: "unknown", seconds: o.seconds, reason: "audit stopped by its time limit before the proof was checked" };
+  if (o.killed) return { audit: "unfinished", seconds: o.seconds, reason: `audit killed (${o.killed} limit)` };
+  if (o.exitCode === 3) return { audit: "unfinished", seconds: o.seconds, reason: "audit stopped by its time limit before the proof was checked" };
   if (json && typeof json.valid === "boolean" && (o.exitCode === 0 || o.exitCode === 1)) {
     if (json.valid) return { audit: "valid", seconds: o.seconds, reason: null };
-    return { audit: "invalid", seconds: o.seconds, reason: failedCheck(json) };
+    return { audit: "rejected", seconds: o.seconds, reason: failedCheck(json) };
   }
-  return { audit: "unknown", seconds: o.seconds, reason: `audit failed to run (exit ${o.exitCode})${json && typeof json.error === "string" ? `: ${json.error}` : ""}` };
+  return { audit: "unfinished", seconds: o.seconds, reason: `audit failed to run (exit ${o.exitCode})${json && typeof json.error === "string" ? `: ${json.error}` : ""}` };
 }
 
 /** The first failed check named in an audit's JSON (checks as an array or an object). */

@@ -18,8 +18,8 @@ export interface InstanceAgreement {
   domain: string;
   /** Proven optimal cost per configuration that proved one. */
   optima: Record<string, number>;
-  /** Status agreement over the proven optima: "agree" (≥ 2 equal), "single" (1), "none" (0), "DISAGREE". */
-  verdict: "agree" | "single" | "none" | "DISAGREE";
+  /** Agreement of the proven optima: "agree" (≥ 2, equal), "one-proof" (1), "no-proof" (0), "disagree" (≥ 2, different: a bug). */
+  verdict: "agree" | "one-proof" | "no-proof" | "disagree";
 }
 
 export interface AgreementResult {
@@ -43,9 +43,9 @@ export function checkAgreement(records: readonly RunRecord[]): AgreementResult {
     const optima: Record<string, number> = {};
     for (const r of optimal) optima[r.configuration] = r.cost as number;
     const costs = [...new Set(optimal.map((r) => r.cost as number))].sort((a, b) => a - b);
-    let verdict: InstanceAgreement["verdict"] = optimal.length === 0 ? "none" : optimal.length === 1 ? "single" : "agree";
+    let verdict: InstanceAgreement["verdict"] = optimal.length === 0 ? "no-proof" : optimal.length === 1 ? "one-proof" : "agree";
     if (costs.length > 1) {
-      verdict = "DISAGREE";
+      verdict = "disagree";
       findings.push({
         kind: "optimum-disagreement",
         instance,
@@ -87,7 +87,7 @@ export function checkAgreement(records: readonly RunRecord[]): AgreementResult {
           });
         }
       }
-      if (r.audit === "invalid") {
+      if (r.audit === "rejected") {
         findings.push({
           kind: "audit-rejected",
           instance,

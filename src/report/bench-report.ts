@@ -71,7 +71,7 @@ export function benchReportHtml(records: readonly RunRecord[], meta: BenchMeta):
     section(
       "Outcomes per configuration",
       htmlTable(
-        ["configuration", "optimal", "feasible", "unsolvable", "unknown", "error", "audits valid", "audits invalid", "median time (optimal)", "max memory"],
+        ["configuration", "optimal", "feasible", "unsolvable", "unknown", "error", "audits valid", "audits rejected", "median time (optimal)", "max memory"],
         bd.map((b) => [esc(b.configuration), String(b.counts.optimal), String(b.counts.feasible), String(b.counts.unsolvable), String(b.counts.unknown), String(b.counts.error), String(b.auditValid), b.auditInvalid ? `<strong style="color:#b3261e">${b.auditInvalid}</strong>` : "0", formatSeconds(b.medianOptimalSeconds), b.maxMemory === null ? "–" : `${Math.round(b.maxMemory)} MB`]),
       ) + `<p class="note">feasible: a plan without an optimality proof; unknown: a limit was reached first; error: the run crashed or refused its input (see the run's stderr.log).</p>`,
     ),
@@ -90,13 +90,13 @@ export function benchReportHtml(records: readonly RunRecord[], meta: BenchMeta):
       if (r.cost === null) return r.lowerBound !== null && r.status === "unknown" ? `<span class="note">≥ ${r.lowerBound}</span>` : badge(r.status);
       return `${r.cost}${r.status === "optimal" ? " ✓" : ""}`;
     }),
-    a.verdict === "DISAGREE" ? `<strong style="color:#b3261e">DISAGREE</strong>` : esc(a.verdict),
+    a.verdict === "disagree" ? `<strong style="color:#b3261e">DISAGREE</strong>` : esc(a.verdict),
   ]);
   parts.push(
     section(
       "Cost agreement",
       (findings ? "" : `<p class="ok">No contradictions: every instance proven optimal by several configurations has one optimal cost, and no plan or bound contradicts it.</p>`) +
-        `<div class="scroll">${htmlTable(["instance", "domain", ...configs, "verdict"], agreeRows, { left: [1] })}</div><p class="note">✓ marks a proven optimum; ≥ a run stopped by a limit with only a lower bound. verdict: agree (two or more proofs, equal), single (one proof), none (no proof).</p>`,
+        `<div class="scroll">${htmlTable(["instance", "domain", ...configs, "verdict"], agreeRows, { left: [1] })}</div><p class="note">✓ marks a proven optimum; ≥ a run stopped by a limit with only a lower bound. verdict: agree (two or more proofs, equal), one-proof (one configuration proved an optimum: nothing to compare it with), no-proof (none did), disagree (proofs of different optima: a bug).</p>`,
       "agreement",
     ),
   );

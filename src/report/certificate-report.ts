@@ -115,10 +115,10 @@ export function certificateReportHtml(v: CertificateView, audit: AuditView): str
       tile("plan cost", show(cost ?? v.planCost)),
       tile("plan length", show(length ?? v.plan?.length)),
       tile("horizon", typeof horizon === "number" || typeof horizon === "string" ? String(horizon) : "–"),
-      tile("audit", audit.status, audit.status === "valid" ? "good" : audit.status === "invalid" ? "bad" : undefined),
+      tile("audit", audit.status, audit.status === "valid" ? "good" : audit.status === "rejected" ? "bad" : undefined),
     ].join("")}</div>`,
   );
-  if (audit.status === "invalid") parts.push(`<div class="alarm"><h2>⚠ The audit rejected this certificate</h2><p>Do not rely on its optimality claim. The failing checks are listed below.</p></div>`);
+  if (audit.status === "rejected") parts.push(`<div class="alarm"><h2>⚠ The audit rejected this certificate</h2><p>Do not rely on its optimality claim. The failing checks are listed below.</p></div>`);
   parts.push(section("Audit", auditSection(audit), "audit"));
 
   let planBody: string;

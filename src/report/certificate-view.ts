@@ -134,7 +134,7 @@ export function singleAuditJson(text: string): Record<string, unknown> | null {
 
 /** Audit JSON (from `plumbline audit --json`) → status and a list of named checks. */
 export function auditViewOf(json: Record<string, unknown> | null, source: AuditView["source"], seconds: number | null, note: string | null = null): AuditView {
-  if (!json || typeof json.valid !== "boolean") return { status: source === "none" ? "none" : "unknown", source, seconds, checks: [], note };
+  if (!json || typeof json.valid !== "boolean") return { status: source === "none" ? "none" : "unfinished", source, seconds, checks: [], note };
   const raw = json.checks;
   const checks: AuditCheck[] = [];
   const detailOf = (c: unknown) => (isObj(c) ? `${c.skipped === true ? "skipped: " : ""}${String(c.detail ?? c.message ?? c.reason ?? "")}` : "");
@@ -142,5 +142,5 @@ export function auditViewOf(json: Record<string, unknown> | null, source: AuditV
   if (Array.isArray(raw)) raw.forEach((c, i) => checks.push({ name: isObj(c) && typeof c.name === "string" ? c.name : `check ${i + 1}`, ok: okOf(c), detail: detailOf(c) }));
   else if (isObj(raw)) for (const [name, c] of Object.entries(raw)) checks.push({ name, ok: okOf(c), detail: detailOf(c) });
   // an audit a limit stopped has no verdict (older audit.json files have no `finished`: they finished)
-  return { status: json.valid ? "valid" : json.finished === false ? "unknown" : "invalid", source, seconds, checks, note };
+  return { status: json.valid ? "valid" : json.finished === false ? "unfinished" : "rejected", source, seconds, checks, note };
 }

@@ -31,8 +31,8 @@ td.wrap { white-space:normal; text-align:left; word-break:break-word; }
 .scroll { overflow-x:auto; max-height:560px; overflow-y:auto; border:1px solid var(--line); border-radius:6px; }
 .badge { display:inline-block; padding:1px 7px; border-radius:10px; font-size:12px; font-weight:600; }
 .s-optimal { background:#dff3e8; color:var(--good); } .s-feasible { background:#fff4d6; color:var(--warn); }
-.s-unsolvable { background:#e4ecf7; color:#23507d; } .s-unknown { background:#eceef2; color:#4a5263; }
-.s-error, .s-invalid { background:#fdecea; color:var(--bad); } .s-valid { background:#dff3e8; color:var(--good); } .s-none { color:var(--muted); }
+.s-unsolvable { background:#e4ecf7; color:#23507d; } .s-unknown, .s-unfinished { background:#eceef2; color:#4a5263; }
+.s-error, .s-invalid, .s-rejected { background:#fdecea; color:var(--bad); } .s-valid { background:#dff3e8; color:var(--good); } .s-none { color:var(--muted); }
 .alarm { border:3px solid var(--bad); background:#fdecea; color:var(--bad); border-radius:8px; padding:14px 18px; margin:0 0 18px; }
 .alarm h2 { color:var(--bad); font-size:19px; text-transform:uppercase; }
 .alarm li { margin:4px 0; color:#5c1410; }

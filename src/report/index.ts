@@ -1,6 +1,7 @@
 // The report stage's public API: result records, agreement checks, text tables, SVG charts
 // and the two HTML pages (bench run, certificate).
 export type { RunRecord, RunStatus, AuditStatus, TimelinePoint, BenchMeta } from "./record.js";
+export { auditStatusOf } from "./record.js";
 export { RUN_STATUSES } from "./record.js";
 export { checkAgreement, findingsBanner, type Finding, type FindingKind, type AgreementResult, type InstanceAgreement } from "./agreement.js";
 export { coverage, breakdown, tightness, geometricMean, median, type Coverage, type Tightness } from "./summary.js";

@@ -5,7 +5,13 @@
 export type RunStatus = "optimal" | "feasible" | "unsolvable" | "unknown" | "error";
 
 /** Result of auditing the run's certificate: none when no certificate was made or checked. */
-export type AuditStatus = "valid" | "invalid" | "none" | "unknown";
+/** The audit's verdict words (README "Words plumbline uses"); "none": not audited. */
+export type AuditStatus = "valid" | "rejected" | "unfinished" | "none";
+
+/** Audit words of results written before this release ("invalid", "unknown") read as today's. */
+export function auditStatusOf(word: string): AuditStatus {
+  return word === "invalid" ? "rejected" : word === "unknown" ? "unfinished" : (word as AuditStatus);
+}
 
 /** One event of the anytime search: best plan cost so far and best proven lower bound. */
 export interface TimelinePoint {

@@ -67,7 +67,7 @@ export function breakdown(records: readonly RunRecord[], configurations: readonl
       configuration,
       counts,
       auditValid: rs.filter((r) => r.audit === "valid").length,
-      auditInvalid: rs.filter((r) => r.audit === "invalid").length,
+      auditInvalid: rs.filter((r) => r.audit === "rejected").length,
       medianOptimalSeconds: median(times),
       maxMemory: mems.length ? Math.max(...mems) : null,
     };

@@ -26,7 +26,7 @@ export function breakdownTable(records: readonly RunRecord[], configurations: re
     String(b.counts.unsolvable),
     String(b.counts.unknown),
     String(b.counts.error),
-    b.auditValid + b.auditInvalid === 0 ? "–" : `${b.auditValid} valid${b.auditInvalid ? `, ${b.auditInvalid} INVALID` : ""}`,
+    b.auditValid + b.auditInvalid === 0 ? "–" : `${b.auditValid} valid${b.auditInvalid ? `, ${b.auditInvalid} REJECTED` : ""}`,
     formatSeconds(b.medianOptimalSeconds),
     b.maxMemory === null ? "–" : `${Math.round(b.maxMemory)} MB`,
   ]);
@@ -47,7 +47,7 @@ export function agreementTable(records: readonly RunRecord[], configurations: re
       if (r.cost === null) return r.lowerBound !== null && r.status === "unknown" ? `≥${r.lowerBound}` : r.status;
       return `${r.cost}${r.status === "optimal" ? "*" : ""}`;
     }),
-    a.verdict === "DISAGREE" ? "DISAGREE !!" : a.verdict,
+    a.verdict === "disagree" ? "DISAGREE !!" : a.verdict,
   ]);
   return formatTable({ headers: ["instance", ...configurations, "verdict"], rows });
 }

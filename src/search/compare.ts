@@ -9,7 +9,7 @@ import { planNames } from "./plan-steps.js";
 import { astarProver, type OptimumProver } from "./prover.js";
 import type { SearchOptions } from "./types.js";
 
-export type Verdict = "invalid" | "optimal" | "suboptimal" | "undetermined";
+export type Verdict = "invalid" | "optimal" | "suboptimal" | "unknown";
 
 export interface CompareOptions extends SearchOptions {
   /** Proves the optimum; default exhaustive A* with landmark-cut. */
@@ -91,5 +91,5 @@ export async function comparePlan(model: Model, task: Task, steps: PlanStep[], o
     return { verdict: "optimal", theirs, ours, excess: 0, seconds: seconds() };
   }
   ours.upperBound = Math.min(theirCost, proof.upperBound ?? Infinity);
-  return { verdict: "undetermined", theirs, ours, excess: null, seconds: seconds() };
+  return { verdict: "unknown", theirs, ours, excess: null, seconds: seconds() };
 }

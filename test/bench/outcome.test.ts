@@ -44,12 +44,12 @@ describe("parseOutcome", () => {
 });
 
 describe("interpretAudit", () => {
-  it("valid, invalid with the failing check, and audits that did not finish", () => {
+  it("valid, rejected with the failing check, and audits that did not finish", () => {
     expect(interpretAudit(child({ stdout: JSON.stringify({ valid: true, checks: [] }) }))).toMatchObject({ audit: "valid", reason: null });
     const bad = interpretAudit(child({ exitCode: 1, stdout: JSON.stringify({ valid: false, checks: [{ name: "inputs", ok: true }, { name: "proof", ok: false, message: "lemma 17 is not RUP" }] }) }));
-    expect(bad).toMatchObject({ audit: "invalid", reason: "check proof failed: lemma 17 is not RUP" });
+    expect(bad).toMatchObject({ audit: "rejected", reason: "check proof failed: lemma 17 is not RUP" });
     expect(interpretAudit(child({ exitCode: 1, stdout: JSON.stringify({ valid: false, checks: { hash: { ok: false } } }) })).reason).toBe("check hash failed");
-    expect(interpretAudit(child({ killed: "time" }))).toMatchObject({ audit: "unknown", reason: "audit killed (time limit)" });
-    expect(interpretAudit(child({ exitCode: 4, stdout: "" }))).toMatchObject({ audit: "unknown", reason: "audit failed to run (exit 4)" });
+    expect(interpretAudit(child({ killed: "time" }))).toMatchObject({ audit: "unfinished", reason: "audit killed (time limit)" });
+    expect(interpretAudit(child({ exitCode: 4, stdout: "" }))).toMatchObject({ audit: "unfinished", reason: "audit failed to run (exit 4)" });
   });
 });

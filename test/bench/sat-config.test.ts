@@ -53,7 +53,7 @@ describe("SAT configurations", () => {
     expect(byId.get("d/good@sat-forall")!.auditSeconds).toBeGreaterThan(0);
     expect(byId.get("d/good@sat-forall")!.timeline).toHaveLength(2);
     // our own certificate rejected by our own audit is a bug: recorded and flagged
-    expect(byId.get("d/bad@sat-forall")).toMatchObject({ audit: "invalid", auditReason: "check proof failed: lemma 3 is not RUP" });
+    expect(byId.get("d/bad@sat-forall")).toMatchObject({ audit: "rejected", auditReason: "check proof failed: lemma 3 is not RUP" });
     expect(r.agreement.findings.map((f) => f.kind)).toEqual(["audit-rejected"]);
     expect(readFileSync(join(out, "runs/sat-forall/d/bad/audit.json"), "utf8")).toContain('"valid":false');
   });

@@ -51,7 +51,7 @@ describe("agreement", () => {
     expect(a.findings).toEqual([]);
     expect(a.instances.map((x) => [x.instance, x.verdict])).toEqual([
       ["h/a", "agree"],
-      ["h/b", "single"],
+      ["h/b", "one-proof"],
     ]);
     expect(findingsBanner(a.findings)).toBe("");
     expect(textSummary(rs).text).toContain("Agreement: no contradictions (1 instance proven optimal by two or more configurations, all equal).");
@@ -62,7 +62,7 @@ describe("agreement", () => {
     const a = checkAgreement(rs);
     expect(a.findings).toHaveLength(1);
     expect(a.findings[0]).toMatchObject({ kind: "optimum-disagreement", instance: "h/a", configurations: ["sat-forall", "astar-landmark-cut"] });
-    expect(a.instances[0].verdict).toBe("DISAGREE");
+    expect(a.instances[0].verdict).toBe("disagree");
     const { text } = textSummary(rs);
     expect(text).toContain("!!  1 DISAGREEMENT BETWEEN CONFIGURATIONS — THIS MEANS A BUG IN PLUMBLINE");
     expect(text).toContain("h/a: proven optimal costs differ: sat-forall = 21, astar-landmark-cut = 22");
@@ -77,7 +77,7 @@ describe("agreement", () => {
       rec({ instance: "h/b", configuration: "astar-landmark-cut", status: "feasible", cost: 30 }),
       rec({ instance: "h/c", configuration: "sat-forall", status: "unsolvable", cost: null }),
       rec({ instance: "h/c", configuration: "astar-landmark-cut", status: "optimal", cost: 4 }),
-      rec({ instance: "h/d", configuration: "sat-seq", status: "optimal", cost: 4, audit: "invalid", auditReason: "check proof failed" }),
+      rec({ instance: "h/d", configuration: "sat-seq", status: "optimal", cost: 4, audit: "rejected", auditReason: "check proof failed" }),
     ];
     const kinds = checkAgreement(rs).findings.map((f) => `${f.instance} ${f.kind}`);
     expect(kinds).toEqual(["h/a bound-above-plan", "h/a plan-below-optimum", "h/b bound-above-plan", "h/c unsolvable-with-plan", "h/d audit-rejected"]);

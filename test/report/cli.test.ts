@@ -84,7 +84,7 @@ describe("plumbline report", () => {
     writeFileSync(join(cert, "certificate.json"), JSON.stringify(cj));
     const bad = await cli(["report", cert, "--json", "--output", join(dir, "bad.html")]);
     expect(bad.code).toBe(1);
-    expect(bad.json().audit).toBe("invalid");
+    expect(bad.json().audit).toBe("rejected");
     expect(bad.json().checks.some((c: { ok: boolean }) => !c.ok)).toBe(true);
     expect(readFileSync(join(dir, "bad.html"), "utf8")).toContain("The audit rejected this certificate");
   });

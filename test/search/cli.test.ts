@@ -90,11 +90,11 @@ describe("plumbline compare", () => {
     expect(h.stdout).toMatch(/\(hitch b1 mid\)\s+<- fails: \(tug-at mid\)/);
   });
 
-  it("undetermined → exit 3 with both bounds", async () => {
+  it("unknown → exit 3 with both bounds", async () => {
     const r = await cli(["compare", D, P1, plan("p1-bypass"), "--time-limit", "0.000001", "--json"]);
     expect(r.code).toBe(3);
     const j = r.json();
-    expect(j.verdict).toBe("undetermined");
+    expect(j.verdict).toBe("unknown");
     expect(j.optimum.upperBound).toBe(6);
     expect(j.optimum.lowerBound).toBeLessThanOrEqual(5);
   });

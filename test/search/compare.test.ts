@@ -41,10 +41,10 @@ describe("compare on the canal fixtures", () => {
     expect(goal.theirs.error).toMatchObject({ step: 4, kind: "goal", literal: "(in b1 dock)" });
   });
 
-  it("undetermined at a zero expansion budget, with bounds around the optimum", async () => {
+  it("unknown at a zero expansion budget, with bounds around the optimum", async () => {
     const { model, task } = load("p1");
     const r = await comparePlan(model, task, planOf("p1-bypass"), { maxExpansions: 0 });
-    expect(r.verdict).toBe("undetermined");
+    expect(r.verdict).toBe("unknown");
     expect(r.ours.lowerBound).toBeLessThanOrEqual(5);
     expect(r.ours.upperBound).toBe(6);
   });
@@ -70,7 +70,7 @@ describe("compare on the canal fixtures", () => {
     };
     const r = await comparePlan(model, task, planOf("p1-bypass"), { prover: giveUp });
     expect(calls).toBe(1);
-    expect(r).toMatchObject({ verdict: "undetermined", ours: { lowerBound: 5.5, upperBound: 6 } });
+    expect(r).toMatchObject({ verdict: "unknown", ours: { lowerBound: 5.5, upperBound: 6 } });
   });
 });
 

@@ -9,7 +9,7 @@ import { readText } from "../../util/files.js";
 import { withCommonOptions, type CliContext } from "../context.js";
 import { positiveNumber } from "../options.js";
 
-const EXIT: Record<CompareResult["verdict"], number> = { optimal: 0, invalid: 1, suboptimal: 1, undetermined: 3 };
+const EXIT: Record<CompareResult["verdict"], number> = { optimal: 0, invalid: 1, suboptimal: 1, unknown: 3 };
 
 function headline(r: CompareResult): string {
   const t = r.theirs;
@@ -21,8 +21,8 @@ function headline(r: CompareResult): string {
       return `verdict: optimal — cost ${t.cost} equals the proven optimum (optimal by ${o.method})`;
     case "suboptimal":
       return `verdict: suboptimal — cost ${t.cost} is ${r.excess} more than the optimum ${o.cost} (optimal by ${o.method})`;
-    case "undetermined":
-      return `verdict: undetermined — a limit was reached; the optimum lies between ${o.lowerBound} and ${o.upperBound} (this plan costs ${t.cost})`;
+    case "unknown":
+      return `verdict: unknown — a limit was reached; the optimum lies between ${o.lowerBound} and ${o.upperBound} (this plan costs ${t.cost})`;
   }
 }
 

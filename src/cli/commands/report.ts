@@ -71,7 +71,7 @@ export function registerReport(program: Command, ctx: CliContext): void {
     }
     const out = opts.output ?? `${resolve(dir).replace(/\/+$/, "")}.report.html`;
     writeFileAtomic(out, certificateReportHtml(view, audit));
-    ctx.exitCode = audit.status === "invalid" ? 1 : 0;
+    ctx.exitCode = audit.status === "rejected" ? 1 : 0;
     ctx.result({ kind, report: resolve(out), audit: audit.status, checks: audit.checks, plan: view.plan ? view.plan.length : null, planNote: view.planNote });
     ctx.out(`certificate ${dir}: audit ${audit.status}${audit.source === "recorded" ? " (recorded)" : ""}${view.planNote ? `\nnote: ${view.planNote}` : ""}\nreport: ${resolve(out)}`);
   });
