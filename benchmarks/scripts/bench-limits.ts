@@ -103,7 +103,7 @@ async function main(): Promise<void> {
     ["search (A*)", ["search", D, big]],
     ["search --greedy", ["search", D, big, "--greedy"]],
     ["horizon", ["horizon", D, big]],
-    ["measure", ["measure", D, big, "--max-states", "100000000"]],
+    ["measure", ["measure", D, big, "--max-reachable-states", "100000000"]],
     ["ground", ["ground", D, big]],
     ["encode", ["encode", D, big, "--steps", "60", "-o", path.join(work, "big.cnf")]],
     ["compare", ["compare", D, big, plan]],

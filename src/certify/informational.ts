@@ -2,6 +2,7 @@
 // each is either compared with what the audit recomputed, or named as not verified, so an edited
 // field is caught or at least never presented as checked.
 import type { Task } from "../ground/index.js";
+import { readPlanFileHeader } from "../plan/index.js";
 import type { CertificateJson } from "./format.js";
 
 /** What the audit recomputed along the way (absent when that part did not run). */
@@ -28,10 +29,9 @@ export interface InformationalResult {
 /** Fields listed as informational only (what they say is not checked by any audit check). */
 export const UNVERIFIED_FIELDS = ["toolVersion", "created", "timeline", "reduction", "proof.uncompressedBytes", "proof.engine"] as const;
 
-/** The cost a plan file's comment states ("; cost = 12 …"), or null when it states none. */
+/** The cost a plan file states ("; cost: 12" in our header, "; cost = 12 …" in older files), or null when it states none. */
 export function statedCost(planText: string): number | null {
-  const m = /^\s*;\s*cost\s*=\s*(-?\d+(?:\.\d+)?)/im.exec(planText);
-  return m ? Number(m[1]) : null;
+  return readPlanFileHeader(planText).cost;
 }
 
 export function checkInformational(cert: CertificateJson, r: Recomputed): InformationalResult {
@@ -57,7 +57,7 @@ export function checkInformational(cert: CertificateJson, r: Recomputed): Inform
   if (cert.proof) compare("proof.bytes", cert.proof.bytes, r.proofBytes);
   if (r.planText !== undefined) {
     const stated = statedCost(r.planText);
-    if (stated !== null) compare("plan.txt cost comment", stated, r.planCost);
+    if (stated !== null) compare("plan.txt stated cost", stated, r.planCost);
   }
   return out;
 }

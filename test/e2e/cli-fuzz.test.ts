@@ -73,11 +73,11 @@ beforeAll(async () => {
   expect((await cli(["encode", D, P, "--steps", "4", "--cost-below", String(cost), "-o", cnf])).code).toBe(0);
   base.cnf = fs.readFileSync(cnf);
   const drat = path.join(work, "f.drat");
-  expect((await cli(["sat", cnf, "--proof", drat, "--proof-format", "text"])).code).toBe(0);
+  expect((await cli(["sat", cnf, "--proof", drat, "--proof-format", "drat-text"])).code).toBe(0);
   base.drat = fs.readFileSync(drat);
   base["drat-gz"] = gzipSync(base.drat);
   const lrat = path.join(work, "f.lrat");
-  expect((await cli(["check-proof", cnf, drat, "--lrat", lrat])).code).toBe(0);
+  expect((await cli(["check-proof", cnf, drat, "--lrat-proof", lrat])).code).toBe(0);
   base.lrat = fs.readFileSync(lrat);
   for (const f of ["certificate.json", "plan.txt", "proof.drat.gz", "problem.pddl"]) base[`cert:${f}`] = fs.readFileSync(path.join(certDir, f));
   expect(gunzipSync(base["cert:proof.drat.gz"]).length).toBeGreaterThan(0);
@@ -117,11 +117,11 @@ function setUp(target: Target, ms: Mutation[], pick: number): { argv: string[]; 
     case "drat":
     case "drat-gz": {
       const DR = put(target === "drat" ? "f.drat" : "f.drat.gz", m(target));
-      return { argv: ["check-proof", CNF, DR, ...limit, ...(pick % 3 === 0 ? ["--mode", "forward"] : [])], inputs: [CNF, DR] };
+      return { argv: ["check-proof", CNF, DR, ...limit, ...(pick % 3 === 0 ? ["--lemmas", "all"] : [])], inputs: [CNF, DR] };
     }
     case "lrat": {
       const LR = put("f.lrat", m("lrat"));
-      return { argv: ["check-proof", CNF, LR, "--format", "lrat"], inputs: [CNF, LR] };
+      return { argv: ["check-proof", CNF, LR, "--proof-format", "lrat"], inputs: [CNF, LR] };
     }
     default: {
       const cert = path.join(dir, "cert");
