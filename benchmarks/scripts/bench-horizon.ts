@@ -9,9 +9,9 @@
 // graph; "≥" marks an A* plan's length when the graph is too large, which flatters the ratio),
 // H/L, H*/L where H* is the horizon for C = optimum + 1 (a completeness threshold must then
 // admit an optimal plan, so H*/L < 1 would be a soundness bug), Hs/L where Hs is the horizon
-// for C without the exact explicit method, and Hg/L where Hg uses no explicit state space at all
+// for C without the optimal-length method, and Hg/L where Hg uses no explicit state space at all
 // (cost counting, zero-cost segments and compositional projections only: the general bounds),
-// and Hs*/L: the horizon without the exact explicit method for C = optimum + 1 (what the final
+// and Hs*/L: the horizon without the optimal-length method for C = optimum + 1 (what the final
 // proof of an optimal plan needs, once the optimizer has found it).
 import { mkdirSync, readdirSync, statSync } from "node:fs";
 import { basename, dirname, join, resolve } from "node:path";
@@ -44,7 +44,7 @@ interface Row {
   ratio: number | null;
   horizonAtOptimum: string | null;
   ratioAtOptimum: number | null;
-  /** Horizon for C by the structural methods only (explicit-optimal disabled). */
+  /** Horizon for C by the structural methods only (optimal-length disabled). */
   structural: string | null;
   structuralWinner: string | null;
   ratioStructural: number | null;
@@ -52,7 +52,7 @@ interface Row {
   general: string | null;
   generalWinner: string | null;
   ratioGeneral: number | null;
-  /** Horizon without the exact explicit method for C = optimum + 1. */
+  /** Horizon without the optimal-length method for C = optimum + 1. */
   structuralAtOptimum: string | null;
   ratioStructuralAtOptimum: number | null;
   groundSeconds: number;
@@ -228,7 +228,7 @@ function main(): void {
         short(row.methods.cost ?? null),
         short(row.methods["zero-cost"] ?? null),
         short(row.methods.compositional ?? null),
-        short(row.methods["explicit-optimal"] ?? null),
+        short(row.methods["optimal-length"] ?? null),
         short(row.horizon),
         row.winner ?? "-",
         row.ratio === null ? "-" : row.ratio.toFixed(2),
@@ -261,9 +261,9 @@ function main(): void {
   console.log("");
   console.log(`geometric mean H/L  = ${gm === null ? "-" : gm.toFixed(2)} over ${ratios.length} instances (target ≤ 4)`);
   console.log(`geometric mean H*/L = ${gmOpt === null ? "-" : gmOpt.toFixed(2)} over ${atOpt.length} instances (H* for C = optimum + 1; must be ≥ 1)`);
-  console.log(`geometric mean Hs/L = ${gmStructural === null ? "-" : gmStructural.toFixed(2)} over ${structural.length} instances (without the exact explicit method)`);
+  console.log(`geometric mean Hs/L = ${gmStructural === null ? "-" : gmStructural.toFixed(2)} over ${structural.length} instances (without the optimal-length method)`);
   console.log(`geometric mean Hg/L = ${gmGeneral === null ? "-" : gmGeneral.toFixed(2)} over ${general.length} instances (general bounds only: no explicit state space at all)`);
-  console.log(`geometric mean Hs*/L = ${gmStructuralAtOpt === null ? "-" : gmStructuralAtOpt.toFixed(2)} over ${structuralAtOpt.length} instances (without the exact explicit method, C = optimum + 1)`);
+  console.log(`geometric mean Hs*/L = ${gmStructuralAtOpt === null ? "-" : gmStructuralAtOpt.toFixed(2)} over ${structuralAtOpt.length} instances (without the optimal-length method, C = optimum + 1)`);
   const wins = (key: "winner" | "structuralWinner" | "generalWinner") => {
     const n = new Map<string, number>();
     for (const r of rows) if (r[key]) n.set(r[key]!, (n.get(r[key]!) ?? 0) + 1);

@@ -14,6 +14,7 @@ import { PlumblineError } from "../util/errors.js";
 import { isLimitReached, withLimits, type LimitReached } from "../util/limits.js";
 import { AUDITABLE_FORMAT_VERSIONS, FILES, FORMAT_VERSION, type CertificateJson } from "./format.js";
 import { checkInformational, type Recomputed } from "./informational.js";
+import { inTodaysWords } from "./older-names.js";
 import { rederive } from "./rederive.js";
 import { sha256 } from "./write.js";
 
@@ -118,7 +119,8 @@ export function readCertificateJson(dir: string): CertificateJson {
     throw new PlumblineError("parse", `${file}: not valid JSON: ${(e as Error).message}`);
   }
   if (!isObj(v)) throw new PlumblineError("parse", `${file}: expected one JSON object`);
-  return v as unknown as CertificateJson;
+  // older certificates name some things in older words: read them in today's (older-names.ts)
+  return inTodaysWords(v as unknown as CertificateJson);
 }
 
 const CLAIMS: Record<string, string[]> = { optimal: ["horizon-unsat", "suffix-unsat", "lower-bound"], unsolvable: ["horizon-unsat", "relaxed-unreachable"] };

@@ -139,19 +139,19 @@ export function rederive(task: Task, horizon: Rec | null, accepted: number | nul
     if (value === null) continue;
     if (m.method === "cost") {
       const C = num(d.C);
-      const cmin = num(d.c_min);
+      const cmin = num(d.minCost);
       const h = num(d.excessLowerBound) ?? 0;
-      if (C === null || cmin === null || cmin <= 0) out.problems.push(`cost method: the recorded C ${JSON.stringify(d.C)} or c_min ${JSON.stringify(d.c_min)} is not usable`);
+      if (C === null || cmin === null || cmin <= 0) out.problems.push(`cost method: the recorded C ${JSON.stringify(d.C)} or minCost ${JSON.stringify(d.minCost)} is not usable`);
       else {
         const again = Math.floor((C - 1 - h) / cmin);
         out.checked.push(`cost method floor((${C} - 1 - ${h}) / ${cmin}) = ${again}`);
         if (again !== value) out.problems.push(`cost method: floor((${C} - 1 - ${h}) / ${cmin}) is ${again}, the certificate records ${value}`);
-        if (!costs.includes(cmin) || Math.min(...positive) > cmin) out.problems.push(`cost method: c_min ${cmin} is not a positive action cost of the task (smallest ${Math.min(...positive)})`);
+        if (!costs.includes(cmin) || Math.min(...positive) > cmin) out.problems.push(`cost method: minCost ${cmin} is not a positive action cost of the task (smallest ${Math.min(...positive)})`);
       }
     }
     if (m.method === "zero-cost") {
       const C = num(d.C);
-      const u = num(d.c_min_positive);
+      const u = num(d.minPositiveCost);
       const h = num(d.excessLowerBound) ?? 0;
       const k = num(d.k);
       if (C !== null && u !== null && u > 0 && k !== null) {
@@ -160,7 +160,7 @@ export function rederive(task: Task, horizon: Rec | null, accepted: number | nul
         if (again !== k) out.problems.push(`zero-cost method: k = floor((${C} - 1 - ${h}) / ${u}) is ${again}, the certificate records ${k}`);
       }
     }
-    if (m.method === "explicit-optimal" && claimed !== null) {
+    if (m.method === "optimal-length" && claimed !== null) {
       const opt = num(d.optimalCost);
       if (opt !== null) {
         out.checked.push(`the exact method's optimum ${opt} against the claimed cost ${claimed}`);
@@ -188,7 +188,7 @@ export function rederive(task: Task, horizon: Rec | null, accepted: number | nul
   for (const m of methods) {
     const d = (m.derivation ?? {}) as Rec;
     const rs = num(d.reachableStates);
-    if (m.method === "explicit" && rs !== null) {
+    if (m.method === "reachable-states" && rs !== null) {
       // the method counts the analysed (pruned) task, whose states are projections of these
       out.checked.push(`explicit method: ${rs} reachable states ≤ ${exact.states} by the plain search`);
       if (rs > exact.states) out.problems.push(`the explicit method records ${rs} reachable states, the plain search finds ${exact.states}`);

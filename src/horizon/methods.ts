@@ -53,7 +53,7 @@ function countRecord(p: PositiveCount): Record<string, unknown> {
  */
 export const costMethod: HorizonMethod = (ctx, C) => {
   const s = costStats(ctx);
-  const base = { formula: "floor((C - 1 - h) / c_min), h = lower bound on the sum of (cost - c_min) over a plan", C: finiteOrText(C), actions: s.actions, zeroCostActions: s.zero, c_min: s.minCost };
+  const base = { formula: "floor((C - 1 - h) / minCost), h = lower bound on the sum of (cost - minCost) over a plan", C: finiteOrText(C), actions: s.actions, zeroCostActions: s.zero, minCost: s.minCost };
   if (!Number.isFinite(C)) return result("cost", undefined, { ...base, notApplicable: "no finite upper cost C" });
   if (C <= 0) return result("cost", 0n, { ...base, note: "no plan costs less than 0" });
   if (s.actions === 0) return result("cost", 0n, { ...base, note: "no actions left after pruning: only the empty plan" });
@@ -75,10 +75,10 @@ export const costMethod: HorizonMethod = (ctx, C) => {
 export const zeroCostMethod: HorizonMethod = (ctx, C, previous) => {
   const s = costStats(ctx);
   const base = {
-    formula: "min(k + sum over zero-cost SCCs S of K(S), k + (k + 1) * l0), k = floor((C - 1 - h) / c_min_positive)",
+    formula: "min(k + sum over zero-cost SCCs S of K(S), k + (k + 1) * l0), k = floor((C - 1 - h) / minPositiveCost)",
     C: finiteOrText(C),
     zeroCostActions: s.zero,
-    c_min_positive: s.minPositive,
+    minPositiveCost: s.minPositive,
   };
   if (!Number.isFinite(C)) return result("zero-cost", undefined, { ...base, notApplicable: "no finite upper cost C" });
   if (C <= 0) return result("zero-cost", 0n, { ...base, note: "no plan costs less than 0" });
@@ -90,7 +90,7 @@ export const zeroCostMethod: HorizonMethod = (ctx, C, previous) => {
   // applies, every threshold of this kind is at least its value (for C above the optimum), so
   // the split by context and the explicit ℓ₀ are skipped; when it ran past its state cap, the
   // explicit ℓ₀ (a BFS from every reachable state) is not attempted either.
-  const exact = previous.find((m) => m.method === "explicit-optimal");
+  const exact = previous.find((m) => m.method === "optimal-length");
   const exactApplies = exact !== undefined && exact.value !== null;
   const comp = runCompositional(ctx, "zero", { segments: add(k, 1n), skipSplit: exactApplies });
   const layered = add(k, comp.total);
@@ -98,7 +98,7 @@ export const zeroCostMethod: HorizonMethod = (ctx, C, previous) => {
   let source = "layered";
   let explicit: Record<string, unknown>;
   const ex = exactApplies || exact?.derivation.stateCapReached === true ? null : ctx.explicit();
-  if (ex === null) explicit = { notComputed: "superseded by the explicit-optimal method" };
+  if (ex === null) explicit = { notComputed: "superseded by the optimal-length method" };
   else if (ex.states !== null && ex.largestZeroReach !== null) {
     // exact zero-cost diameter when affordable, else the largest zero-cost reachable set − 1
     const l0 = big(ex.zeroCostDiameter ?? ex.largestZeroReach - 1);
@@ -142,12 +142,12 @@ export const compositionalMethod: HorizonMethod = (ctx, C) => {
 export const explicitOptimalMethod: HorizonMethod = (ctx, C) => {
   const cap = optimalStateCap(ctx.prepared.task, ctx.limits.maxOptimalStates);
   const base = { formula: "fewest actions among cost-optimal plans (Dijkstra on (cost, length))", C: finiteOrText(C), stateCap: cap };
-  if (ctx.limits.maxOptimalStates <= 0) return result("explicit-optimal", undefined, { ...base, notApplicable: "disabled (maxOptimalStates = 0)" });
+  if (ctx.limits.maxOptimalStates <= 0) return result("optimal-length", undefined, { ...base, notApplicable: "disabled (maxOptimalStates = 0)" });
   const o = ctx.optimal();
-  if (o.kind === "exceeded") return result("explicit-optimal", undefined, { ...base, stateCapReached: true, notApplicable: `more than ${o.maxStates} states to store` });
+  if (o.kind === "exceeded") return result("optimal-length", undefined, { ...base, stateCapReached: true, notApplicable: `more than ${o.maxStates} states to store` });
   if (o.kind === "no-plan")
-    return result("explicit-optimal", undefined, { ...base, notApplicable: `no plan: all ${o.statesStored} reachable states searched (the other methods bound plan existence)` });
-  return result("explicit-optimal", big(o.length), {
+    return result("optimal-length", undefined, { ...base, notApplicable: `no plan: all ${o.statesStored} reachable states searched (the other methods bound plan existence)` });
+  return result("optimal-length", big(o.length), {
     ...base,
     optimalCost: o.cost,
     fewestActions: o.length,
@@ -169,17 +169,17 @@ export const explicitMethod: HorizonMethod = (ctx, C, previous) => {
   const base = { formula: "reachable states - 1", C: finiteOrText(C) };
   if (ex.states === null) {
     const why = cap < ctx.limits.maxExplicitStates ? ` (explored only as far as could beat the best other method, ${best})` : "";
-    return result("explicit", undefined, { ...base, notApplicable: `more than ${ex.maxStates} reachable states${why}` });
+    return result("reachable-states", undefined, { ...base, notApplicable: `more than ${ex.maxStates} reachable states${why}` });
   }
-  return result("explicit", big(Math.max(0, ex.states - 1)), { ...base, reachableStates: ex.states });
+  return result("reachable-states", big(Math.max(0, ex.states - 1)), { ...base, reachableStates: ex.states });
 };
 
 export const METHODS: ReadonlyArray<{ name: string; run: HorizonMethod }> = [
   { name: "cost", run: costMethod },
-  { name: "explicit-optimal", run: explicitOptimalMethod },
+  { name: "optimal-length", run: explicitOptimalMethod },
   { name: "zero-cost", run: zeroCostMethod },
   { name: "compositional", run: compositionalMethod },
-  { name: "explicit", run: explicitMethod },
+  { name: "reachable-states", run: explicitMethod },
 ];
 
 function runCompositional(ctx: BoundContext, mode: "all" | "zero", extra: { segments?: Big; positiveCap?: Big; skipSplit?: boolean }): CompositionalResult {

@@ -19,7 +19,7 @@ export type OptimalLength =
  * plan: the optimal cost, and the fewest actions among plans of that cost. The search stops
  * there, so only states whose key is at most the goal's are stored (plus their successors).
  * Deterministic: successors are generated in action order and ties broken by state index.
- * As a horizon (methods.ts, "explicit-optimal"): a plan of cost c < C means the optimum is at
+ * As a horizon (methods.ts, "optimal-length"): a plan of cost c < C means the optimum is at
  * most c, and a plan of the optimal cost with `length` actions exists. Past `maxStates` stored
  * states the result is "exceeded" and the method does not apply; the cap is a function of the
  * task and the options only, so an auditor with the same defaults reaches the same verdict.

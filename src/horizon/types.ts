@@ -3,7 +3,7 @@
 import type { H2Options, PreparedTask } from "../analyse/index.js";
 
 export interface MethodResult {
-  /** "cost", "zero-cost", "compositional", "explicit-optimal" or "explicit". */
+  /** "cost", "optimal-length", "zero-cost", "compositional" or "reachable-states" (README "Words plumbline uses"). */
   method: string;
   /**
    * The completeness threshold this method proves (a number of actions), null when the method

@@ -3,6 +3,7 @@
 // tolerantly (the report shows what is there); checking the certificate is audit's job.
 import { existsSync, readdirSync, readFileSync } from "node:fs";
 import { basename, join } from "node:path";
+import { inTodaysWords } from "../certify/older-names.js";
 import { loadModel } from "../pddl/index.js";
 import { parsePlan, replayPlan } from "../plan/index.js";
 import { PlumblineError } from "../util/errors.js";
@@ -84,7 +85,8 @@ export function readCertificateView(dir: string, timelineOf: (cert: Record<strin
   try {
     const v = JSON.parse(readText(file)) as unknown;
     if (!isObj(v)) throw new Error("not an object");
-    cert = v;
+    // an older certificate's horizon shown in today's words (method names, derivation keys)
+    cert = inTodaysWords(v);
   } catch (e) {
     if (e instanceof PlumblineError) throw e;
     throw new PlumblineError("parse", `${file}: not a certificate (expected one JSON object): ${(e as Error).message}`);

@@ -37,11 +37,11 @@ describe("second derivation", () => {
 
   it("redoes the recorded arithmetic and cross-checks the exact method's optimum", () => {
     const task = { facts: ["a", "g"], init: [0], goal: [1], goalNeg: [], actions: [{ name: "(go)", schema: "go", args: [], pre: [0], preNeg: [], add: [1], del: [], cond: [], cost: 3 }] } as never;
-    const cost = (value: number) => ({ methods: [{ method: "cost", value, derivation: { C: 10, c_min: 3, excessLowerBound: 0 } }] });
+    const cost = (value: number) => ({ methods: [{ method: "cost", value, derivation: { C: 10, minCost: 3, excessLowerBound: 0 } }] });
     // floor((10 - 1 - 0) / 3) = 3 (arithmetic by hand)
     expect(rederive(task, cost(3), 3, 3).problems).toEqual([]);
     expect(rederive(task, cost(4), 4, 3).problems.join()).toMatch(/floor\(\(10 - 1 - 0\) \/ 3\) is 3, the certificate records 4/);
-    const exact = (optimalCost: number) => ({ methods: [{ method: "explicit-optimal", value: 1, derivation: { optimalCost } }] });
+    const exact = (optimalCost: number) => ({ methods: [{ method: "optimal-length", value: 1, derivation: { optimalCost } }] });
     expect(rederive(task, exact(3), 1, 3).problems).toEqual([]);
     expect(rederive(task, exact(2), 1, 3).problems.join()).toMatch(/recorded the optimum 2, but the claimed cost is 3/);
   });

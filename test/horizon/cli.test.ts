@@ -38,7 +38,7 @@ describe("plumbline horizon", () => {
     const r = await cli(["horizon", D, P, "--json"]);
     expect(r.code).toBe(0);
     const j = r.json();
-    expect(j.methods.map((m: { method: string }) => m.method)).toEqual(["cost", "explicit-optimal", "zero-cost", "compositional", "explicit"]);
+    expect(j.methods.map((m: { method: string }) => m.method)).toEqual(["cost", "optimal-length", "zero-cost", "compositional", "reachable-states"]);
     expect(j.methods.find((m: { method: string }) => m.method === "cost").value).toBeNull(); // zero-cost walks
     expect(typeof j.upperCost).toBe("number"); // from the first plan
     expect(j.horizon).toBeGreaterThanOrEqual(6); // the only cheapest plan has 6 actions (worked by hand)
@@ -58,13 +58,13 @@ describe("plumbline horizon", () => {
   it("turns the exact search off with --max-optimal-states 0 and names every number in plain text", async () => {
     const off = await cli(["horizon", D, P, "--cost-below", "2", "--max-optimal-states", "0", "--json"]);
     expect(off.code).toBe(0);
-    const exact = off.json().methods.find((m: { method: string }) => m.method === "explicit-optimal");
+    const exact = off.json().methods.find((m: { method: string }) => m.method === "optimal-length");
     expect(exact.value).toBeNull();
     expect(exact.derivation.notApplicable).toMatch(/disabled/);
     // still a completeness threshold: the only plan of cost < 2 has 6 actions (worked by hand)
     expect(off.json().horizon).toBeGreaterThanOrEqual(6);
     const on = await cli(["horizon", D, P, "--cost-below", "2"]);
-    expect(on.stdout).toMatch(/explicit-optimal\s+6\s+fewest actions among plans of the optimal cost 1/); // worked by hand
+    expect(on.stdout).toMatch(/optimal-length\s+6\s+fewest actions among plans of the optimal cost 1/); // worked by hand
     expect(on.stdout).not.toMatch(/undefined/);
     const text = await cli(["horizon", D, P, "--cost-below", "2", "--max-optimal-states", "0"]);
     expect(text.stdout).toMatch(/zero-cost\s+\d+\s+k = \d+ positive-cost actions/);

@@ -28,7 +28,7 @@ describe("excess lower bound", () => {
         const opt = optimalCost(task);
         fc.pre(opt !== null);
         const d = computeMethod(task, opt!.cost + slack, "zero-cost", { maxOptimalStates: 0 }).derivation;
-        const u = d.c_min_positive as number | null;
+        const u = d.minPositiveCost as number | null;
         if (u === null) return;
         const h = d.excessLowerBound as number;
         // every plan of the task maps to one of the reduced task no dearer in this excess (see excess.ts)
@@ -53,7 +53,7 @@ describe("exact explicit method", () => {
     fc.assert(
       fc.property(tasks(0.4), fc.boolean(), (task, relevance) => {
         const ref = optimalCost(task);
-        const m = computeMethod(task, 50, "explicit-optimal", { relevance });
+        const m = computeMethod(task, 50, "optimal-length", { relevance });
         if (ref === null) {
           expect(m.value).toBeNull(); // no plan: the method gives no (vacuous) horizon
           return;
@@ -84,7 +84,7 @@ describe("exact explicit method", () => {
       const dir = `benchmarks/domains/${scenario}`;
       const fig = (JSON.parse(readFileSync(`${dir}/instances.json`, "utf8")) as Record<string, { optimalCost: number; optimalLength: number }>)[name];
       const { task } = groundFiles(`${dir}/domain.pddl`, `${dir}/${name}.pddl`);
-      const m = computeMethod(task, fig.optimalCost + 1, "explicit-optimal");
+      const m = computeMethod(task, fig.optimalCost + 1, "optimal-length");
       expect(m.value, `${scenario}/${name}`).toBe(fig.optimalLength);
       expect(m.derivation.optimalCost, `${scenario}/${name}`).toBe(fig.optimalCost);
     }
@@ -95,7 +95,7 @@ describe("exact explicit method", () => {
       fc.property(tasks(0.3), (task) => {
         const states = reachableStates(task)!.length;
         fc.pre(states >= 4);
-        const m = computeMethod(task, 50, "explicit-optimal", { relevance: false, maxOptimalStates: 2 });
+        const m = computeMethod(task, 50, "optimal-length", { relevance: false, maxOptimalStates: 2 });
         if (m.value !== null) expect(m.derivation.statesStored as number).toBeLessThanOrEqual(2);
         else expect(String(m.derivation.notApplicable)).toMatch(/more than 2 states|no plan/);
       }),

@@ -60,7 +60,7 @@ describe("horizon is a completeness threshold", () => {
   });
 
   // "zero-cost/projections": ℓ₀ from the compositional bound only (explicit state space disabled)
-  for (const method of ["zero-cost", "zero-cost/projections", "compositional", "explicit-optimal", "explicit"]) {
+  for (const method of ["zero-cost", "zero-cost/projections", "compositional", "optimal-length", "reachable-states"]) {
     it(`the ${method} method alone`, () => {
       const tally: Tally = { checked: 0, binding: 0 };
       const [name, opts] = method === "zero-cost/projections" ? ["zero-cost", { maxExplicitStates: 1 }] : [method, {}];

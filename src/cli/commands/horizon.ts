@@ -85,20 +85,20 @@ function why(m: MethodResult): string {
   if (d.note) return String(d.note);
   switch (m.method) {
     case "cost":
-      return `floor((${d.C} - 1 - ${d.excessLowerBound}) / ${d.c_min}): at most that many actions, each costing at least ${d.c_min}, beyond the excess ${d.excessLowerBound} every plan pays`;
+      return `floor((${d.C} - 1 - ${d.excessLowerBound}) / ${d.minCost}): at most that many actions, each costing at least ${d.minCost}, beyond the excess ${d.excessLowerBound} every plan pays`;
     case "zero-cost": {
       const layered = d.layered as { value?: unknown } | undefined;
       const explicit = d.explicit as { value?: unknown; l0?: unknown } | undefined;
       const viaL0 = explicit?.value !== undefined ? `, k + (k+1)·${explicit.l0} = ${explicit.value} (exact zero-cost distances)` : "";
       return `k = ${d.k} positive-cost actions + zero-cost actions per SCC = ${layered?.value}${viaL0}; ${d.zeroCostActions} zero-cost actions`;
     }
-    case "explicit-optimal":
+    case "optimal-length":
       return `fewest actions among plans of the optimal cost ${d.optimalCost} (exact search, ${d.statesStored} states stored)`;
     case "compositional": {
       const contributing = (d.contributing as unknown[]).length;
       return `${d.components} SCCs (${contributing} contribute), ${d.projectionsExplored} projections explored, ${d.projectionsAbandoned} abandoned`;
     }
-    case "explicit":
+    case "reachable-states":
       return `${d.reachableStates} reachable states - 1`;
     default:
       return String(d.formula ?? "");

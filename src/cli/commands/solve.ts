@@ -133,7 +133,7 @@ export function registerSolve(program: Command, ctx: CliContext): void {
       const lines = [headline(out)];
       if (planText !== null) lines.push("", planText.trimEnd());
       if (out.how === "suffix-unsat") lines.push("", `proved at horizon ${out.horizon} with a relaxed suffix${out.thresholdAvoided !== null ? ` (a completeness threshold would have needed ${out.thresholdAvoided})` : ""}`);
-      else if (out.horizon !== null && out.how !== "lower-bound") lines.push("", `horizon: ${out.horizon}${out.horizonWinner ? ` (${out.horizonWinner} bound)` : ""}${out.status === "feasible" || out.status === "unknown" ? " — what a proof would need" : ""}`);
+      else if (out.horizon !== null && out.how !== "lower-bound") lines.push("", `horizon: ${out.horizon} steps${out.horizonWinner ? ` (by the ${out.horizonWinner} method)` : ""}${out.status === "feasible" || out.status === "unknown" ? " — what a proof would need" : ""}`);
       for (const n of out.notes) lines.push(`note: ${n}`);
       if (certificate) lines.push(`certificate written to ${certificate} (check it with: ${invocationName()} audit ${certificate})`);
       lines.push("", CAUTION);
