@@ -12,7 +12,7 @@ import { checkDrat } from "../proof/index.js";
 import { checkLandmarkCertificate, relaxedReachableWithout, type LandmarkRecord } from "../search/index.js";
 import { PlumblineError } from "../util/errors.js";
 import { isLimitReached, withLimits, type LimitReached } from "../util/limits.js";
-import { AUDITABLE_FORMAT_VERSIONS, FILES, FORMAT_VERSION, type CertificateJson } from "./format.js";
+import { AUDITABLE_FORMAT_VERSIONS, COST_SETTING_KEY, costSettingWords, FILES, FORMAT_VERSION, type CertificateJson } from "./format.js";
 import { checkInformational, type Recomputed } from "./informational.js";
 import { inTodaysWords } from "./older-names.js";
 import { rederive } from "./rederive.js";
@@ -423,32 +423,37 @@ function auditFormula(c: Checks, dir: string, cert: CertificateJson, pipe: Plann
   const costId = enc.cost as CostEncodingId;
   let parts: PartId[] | null = null;
   try {
-    parts = checkParts(Array.isArray(enc.extensions) ? (enc.extensions as string[]) : undefined);
+    parts = checkParts(Array.isArray(enc.parts) ? (enc.parts as string[]) : undefined);
   } catch {
     parts = null;
   }
   const stepOk = STEP_ENCODINGS.includes(step) && COST_ENCODINGS.includes(costId);
-  const partsOk = parts !== null && Array.isArray(enc.extensions);
+  const partsOk = parts !== null && Array.isArray(enc.parts);
   const params: Record<string, unknown> = isObj(enc.params) ? enc.params : {};
-  const recordedSetting = (name: "costBits" | "costCap") => (typeof params[name] === "number" && Number.isSafeInteger(params[name]) && (params[name] as number) >= 0 ? (params[name] as number) : -1);
+  const recorded = (name: "costBits" | "costCap") => params[COST_SETTING_KEY[name]];
+  const recordedSetting = (name: "costBits" | "costCap") => {
+    const v = recorded(name);
+    return typeof v === "number" && Number.isSafeInteger(v) && v >= 0 ? v : -1;
+  };
   const settings = terms.settingFrom === "upper-cost" ? boundSettings(upper) : { costBits: recordedSetting("costBits"), costCap: recordedSetting("costCap") };
   const partParams = isObj(enc.partParams) ? (enc.partParams as PartParams) : undefined;
   const spec: FormulaSpec = { encoding: step, cost: costId, steps: H, ...settings, mutexGroups: groups, parts: parts ?? [], ...(partParams ? { partParams } : {}) };
   const bound = terms.bound;
   const problems: string[] = [];
   if (!stepOk) problems.push(`unknown step or cost encoding ${JSON.stringify(enc.step)} / ${JSON.stringify(enc.cost)}`);
-  if (!partsOk) problems.push(`unknown, repeated or misordered parts ${JSON.stringify(enc.extensions)}`);
+  if (!partsOk) problems.push(`unknown, repeated or misordered parts ${JSON.stringify(enc.parts)}`);
   if (stepOk && partsOk && enc.id !== formulaId(spec)) problems.push(`id ${JSON.stringify(enc.id)} is not ${formulaId(spec)}`);
   // the bound setting of the recorded cost encoding, recomputed from the upper cost (or as recorded)
   const { name: setting, value: settingValue } = costSetting(spec);
   if (params.steps !== H) problems.push(`steps ${JSON.stringify(params.steps)} is not the accepted horizon ${H}`);
-  if (params[setting] !== settingValue) problems.push(`${setting} ${JSON.stringify(params[setting])} is not ${settingValue}`);
-  const extra = Object.keys(params).filter((k) => !["steps", setting, "mutexGroups"].includes(k));
+  const settingKey = COST_SETTING_KEY[setting];
+  if (params[settingKey] !== settingValue) problems.push(`${settingKey} ${JSON.stringify(params[settingKey])} is not ${settingValue}`);
+  const extra = Object.keys(params).filter((k) => !["steps", settingKey, "mutexGroups"].includes(k));
   if (extra.length > 0) problems.push(`unexpected parameters ${extra.join(", ")} for ${JSON.stringify(enc.cost)}`);
   const gd = firstDifference(groups, params.mutexGroups, "mutexGroups");
   if (gd) problems.push(`mutex groups differ from the recomputed ones (${gd})`);
   if (enc.bound !== bound) problems.push(`the final query's bound ${JSON.stringify(enc.bound)} is not ${bound === null ? "null (any plan)" : `the claimed cost − 1 = ${bound}`}`);
-  if (!c.check("encoding", problems.length === 0, `${formulaId(spec)}, ${H} steps, ${setting} ${settingValue}, ${groups.length} mutex groups, query ${bound === null ? "any plan" : `cost ≤ ${bound}`}`, problems.join("; "))) {
+  if (!c.check("encoding", problems.length === 0, `${formulaId(spec)}, ${H} steps, ${costSettingWords(setting, settingValue)}, ${groups.length} mutex groups, query ${bound === null ? "any plan" : `cost ≤ ${bound}`}`, problems.join("; "))) {
     if (!stepOk || !partsOk) {
       c.skip("cnf-hash", "unknown encoding");
       c.skip("proof-check", "unknown encoding");
@@ -466,8 +471,13 @@ function auditFormula(c: Checks, dir: string, cert: CertificateJson, pipe: Plann
     c.fail("cnf-hash", `the formula cannot be rebuilt: ${(e as Error).message}`);
     return;
   }
-  const ud = firstDifference(units, enc.boundUnits, "boundUnits");
-  c.check("bound-units", ud === null, `${units.length} bound literals as recorded`, `recorded bound literals differ: ${ud}`);
+  const ud = firstDifference(units, enc.costBoundClauses, "costBoundClauses");
+  c.check(
+    "cost-bound-clauses",
+    ud === null,
+    `${units.length} unit clause${units.length === 1 ? "" : "s"} saying ${bound === null ? "nothing about cost (any plan)" : `cost ≤ ${bound}`}, as recorded`,
+    `the recorded clauses that say cost ≤ ${bound} differ from the rebuilt ones: ${ud}`,
+  );
   seen.cnf = { variables: formula.numVars, clauses: formula.numClauses + units.length };
   const hash = canonicalCnfSha256(formula, units);
   c.check("cnf-hash", hash === cert.cnf?.sha256, `rebuilt CNF (${formula.numVars} variables, ${formula.numClauses + units.length} clauses) has the recorded SHA-256`, `the rebuilt CNF has SHA-256 ${hash}, the certificate records ${cert.cnf?.sha256}`);
@@ -506,7 +516,7 @@ function auditSuffixUnsat(c: Checks, dir: string, cert: CertificateJson, task: T
   const enc = cert.encoding;
   const cost = cert.plan!.cost;
   const stepsRaw = isObj(enc) && isObj(enc.params) ? enc.params.steps : undefined;
-  const parts = isObj(enc) && Array.isArray(enc.extensions) ? (enc.extensions as string[]) : [];
+  const parts = isObj(enc) && Array.isArray(enc.parts) ? (enc.parts as string[]) : [];
   const partOk = parts.includes("relaxed-suffix-1");
   const stepsOk = typeof stepsRaw === "number" && Number.isSafeInteger(stepsRaw) && stepsRaw >= 0 && stepsRaw <= MAX_SUFFIX_STEPS;
   if (

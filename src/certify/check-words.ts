@@ -13,7 +13,6 @@ export const CHECK_WORDS: Readonly<Record<string, string>> = {
   "horizon-upper-cost": "the step limit of the proof was worked out for a cost at least the plan's",
   "horizon-derivation": "the step limit was worked out again from the model and agrees: a cheaper plan, if one existed, would fit within it",
   encoding: "the formula of the proof is one this version knows how to rebuild",
-  "bound-units": "the formula asks exactly for a plan cheaper than the claimed cost",
   "cost-bound-clauses": "the formula asks exactly for a plan cheaper than the claimed cost",
   "cnf-hash": "the formula was rebuilt from the model and is the one the proof is about",
   "proof-hash": "the proof file is the one the certificate was made with",
@@ -23,6 +22,9 @@ export const CHECK_WORDS: Readonly<Record<string, string>> = {
   "lower-bound-equals-cost": "that lower bound equals the plan's cost, so no plan is cheaper",
   "relaxed-unreachable": "the goal cannot be reached even if no action ever undid anything, so no plan exists",
   finished: "the audit ran to the end",
+  "second-derivation": "the step limit and the optimum were worked out a second way, by code that shares nothing with the first, and agree",
+  informational: "the certificate's other figures (sizes, counts) match what the audit recomputed, or are named as not checked",
+  "suffix-terms": "the proof's formula is the kind that covers plans of any length (real steps, then a relaxed suffix)",
 };
 
 /** The plain sentence for a check, or its name when it has none yet. */

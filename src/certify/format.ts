@@ -29,6 +29,17 @@ export const CAUTION = "A proof of optimality is about the model as written: a p
 export const CNF_FORM =
   "canonical DIMACS: 'p cnf V C' line, then one clause per line ('l1 l2 ... 0'): the encoder's clauses in order (its parts included), then one unit clause per bound literal; no comments, '\\n' line ends";
 
+/**
+ * The certificate's key for the cost encoding's setting: costBits (cost-adder-1: bits of the adder)
+ * and costCountedUpTo (cost-unary-1: the counter counts cost up to this value; the encoder calls it costCap).
+ */
+export const COST_SETTING_KEY: Readonly<Record<"costBits" | "costCap", string>> = { costBits: "costBits", costCap: "costCountedUpTo" };
+
+/** The cost encoding's setting in words, for people. */
+export function costSettingWords(name: "costBits" | "costCap", value: number): string {
+  return name === "costBits" ? `a ${value}-bit cost adder` : `cost counted up to ${value}`;
+}
+
 export interface FileRecord {
   file: string;
   sha256: string;
@@ -61,15 +72,16 @@ export interface CertificateJson {
     id: string;
     step: string;
     cost: string;
-    /** The encoding's optional parts (src/encode PARTS; the name dates from when they were optimizer extensions). */
-    extensions: string[];
-    /** costBits for cost-adder-1, costCap for cost-unary-1. */
-    params: { steps: number; costBits?: number; costCap?: number; mutexGroups: number[][] };
+    /** The encoding's optional parts (src/encode PARTS; `extensions` in certificates before this release). */
+    parts: string[];
+    /** costBits for cost-adder-1, costCountedUpTo for cost-unary-1 (`costCap` before this release): COST_SETTING_KEY. */
+    params: { steps: number; costBits?: number; costCountedUpTo?: number; mutexGroups: number[][] };
     /** Parameters of parts that take them (relaxed-suffix-1: { pairs }); absent when none. */
     partParams?: Record<string, unknown>;
     /** The final query: "plan cost ≤ bound" (null: any plan at all). */
     bound: number | null;
-    boundUnits: number[];
+    /** The unit clauses (one literal each) that say "plan cost ≤ bound" (`boundUnits` before this release). */
+    costBoundClauses: number[];
   } | null;
   cnf: { sha256: string; variables: number; clauses: number; form: string } | null;
   proof: (FileRecord & { format: "drat-binary" | "drat-text"; compression: "gzip"; bytes: number; uncompressedBytes: number; engine: string }) | null;

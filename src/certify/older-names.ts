@@ -1,5 +1,6 @@
 // Certificates written before this release's renames say some things in older words (horizon
-// methods "explicit-optimal" and "explicit", derivation keys c_min and c_min_positive). Reading one
+// methods "explicit-optimal" and "explicit", derivation keys c_min and c_min_positive, encoding keys
+// extensions, costCap and boundUnits). Reading one
 // renames them in memory to today's words, so the audit compares like with like and every older
 // certificate keeps auditing; the files themselves are never changed (nothing hashed is touched).
 
@@ -44,14 +45,34 @@ export function horizonInTodaysWords(horizon: unknown): unknown {
   return out;
 }
 
+/** Encoding keys: older → today's (certify/format.ts). */
+const OLDER_ENCODING_KEYS: Readonly<Record<string, string>> = { extensions: "parts", boundUnits: "costBoundClauses" };
+const OLDER_PARAM_KEYS: Readonly<Record<string, string>> = { costCap: "costCountedUpTo" };
+
+/** Renames the keys of `o` by `names` (a key whose new name is already there is left as it is). */
+function renameKeys(o: Record<string, unknown>, names: Readonly<Record<string, string>>): Record<string, unknown> {
+  const out: Record<string, unknown> = {};
+  for (const [k, v] of Object.entries(o)) {
+    const now = names[k];
+    if (now !== undefined && !(now in o)) out[now] = v;
+    else out[k] = v;
+  }
+  return out;
+}
+
 /**
  * certificate.json as read, in today's words: the horizon report (older method names and keys)
- * renamed. A certificate already in today's words comes back unchanged.
+ * and the encoding record (older keys) renamed. A certificate already in today's words comes back unchanged.
  */
 export function inTodaysWords<T>(cert: T): T {
   if (!isObj(cert)) return cert;
   const out: Record<string, unknown> = { ...cert };
   if ("horizon" in out) out.horizon = horizonInTodaysWords(out.horizon);
+  if (isObj(out.encoding)) {
+    const enc = renameKeys(out.encoding, OLDER_ENCODING_KEYS);
+    if (isObj(enc.params)) enc.params = renameKeys(enc.params, OLDER_PARAM_KEYS);
+    out.encoding = enc;
+  }
   const avoided = out.thresholdAvoided;
   if (isObj(avoided) && typeof avoided.method === "string") out.thresholdAvoided = { ...avoided, method: OLDER_METHOD_NAMES[avoided.method] ?? avoided.method };
   return out as T;

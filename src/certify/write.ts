@@ -10,7 +10,7 @@ import { canonicalCnfSha256, costSetting, formulaId, planFile, type CertificateM
 import { PlumblineError } from "../util/errors.js";
 import { writeDirAtomic } from "../util/files.js";
 import { VERSION } from "../util/version.js";
-import { CAUTION, CERTIFICATE_KIND, CNF_FORM, FILES, FORMAT_VERSION, type CertificateJson } from "./format.js";
+import { CAUTION, CERTIFICATE_KIND, CNF_FORM, COST_SETTING_KEY, FILES, FORMAT_VERSION, type CertificateJson } from "./format.js";
 
 export function sha256(data: string | Uint8Array): string {
   return createHash("sha256").update(data).digest("hex");
@@ -85,12 +85,11 @@ export async function writeCertificate(dir: string, m: CertificateMaterial): Pro
       id: formulaId(f.spec),
       step: f.spec.encoding,
       cost: f.params.cost,
-      // the encoding's optional parts (the field kept its name from when they were optimizer extensions)
-      extensions: [...f.spec.parts],
-      params: { steps: f.spec.steps, [setting.name]: setting.value, mutexGroups: f.params.mutexGroups },
+      parts: [...f.spec.parts],
+      params: { steps: f.spec.steps, [COST_SETTING_KEY[setting.name]]: setting.value, mutexGroups: f.params.mutexGroups },
       ...(f.params.partParams ? { partParams: JSON.parse(JSON.stringify(f.params.partParams)) as Record<string, unknown> } : {}),
       bound: m.bound,
-      boundUnits: [...m.units],
+      costBoundClauses: [...m.units],
     };
     json.cnf = { sha256: canonicalCnfSha256(f, m.units), variables: f.numVars, clauses: f.numClauses + m.units.length, form: CNF_FORM };
   } else if (claim.how === "lower-bound") {

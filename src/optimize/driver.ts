@@ -183,7 +183,7 @@ export async function thresholdRoute(run: Run, known?: HorizonReport): Promise<O
       if (improved) continue; // the threshold shrinks with the cost
     }
     const s = run.open(spec, true);
-    run.progress.state.phase = "proving";
+    run.progress.state.phase = "proof at the completeness threshold";
     run.progress.say(`proof formula at horizon ${H} (${rep.winner}): ${s.formula.numVars.toLocaleString("en")} vars, ${s.formula.numClauses.toLocaleString("en")} clauses`);
     for (;;) {
       const C = run.best!.cost;
@@ -220,7 +220,7 @@ async function probe(run: Run, H: number): Promise<boolean | "stop"> {
     const spec = run.spec(T, run.best!.cost);
     if (!run.fits(spec).ok) break;
     const s = run.open(spec, false);
-    run.progress.state.phase = "probing";
+    run.progress.state.phase = "cheaper plan at a short horizon (no proof)";
     for (;;) {
       const q = await run.ask(s, run.best!.cost - 1, PROBE_CONFLICTS);
       if (q.status !== "sat") break;

@@ -66,7 +66,7 @@ describe("audit of a horizon-unsat certificate", () => {
       "horizon-upper-cost",
       "horizon-derivation",
       "encoding",
-      "bound-units",
+      "cost-bound-clauses",
       "cnf-hash",
       "proof-hash",
       "proof-check",
@@ -118,7 +118,7 @@ describe("audit of a horizon-unsat certificate", () => {
       j.encoding.id = "seq-1+cost-adder-1+empty-steps-last-1";
     });
     expect(r.failed).toContain("cnf-hash");
-    expect(tampered((_d, j) => (j.encoding.boundUnits[1] = -j.encoding.boundUnits[1])).failed).toContain("bound-units");
+    expect(tampered((_d, j) => (j.encoding.costBoundClauses[1] = -j.encoding.costBoundClauses[1])).failed).toContain("cost-bound-clauses");
   });
 
   it("rejects a changed CNF hash", () => {

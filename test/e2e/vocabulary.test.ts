@@ -6,6 +6,7 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { CONFIGURATIONS } from "../../src/bench/index.js";
+import { CHECK_WORDS } from "../../src/certify/index.js";
 import { COMMAND_GROUPS } from "../../src/cli/help.js";
 import { COST_ENCODINGS, PARTS, STEP_ENCODINGS } from "../../src/encode/index.js";
 import { METHODS } from "../../src/horizon/methods.js";
@@ -34,7 +35,7 @@ const ofKind = (kind: string) => [...VOCAB].filter(([, k]) => k.has(kind)).map((
 const known = (word: string, ...kinds: string[]) => expect(kinds.some((k) => VOCAB.get(word)?.has(k)), `'${word}' as ${kinds.join(" or ")} in README "Words plumbline uses"`).toBe(true);
 
 /** Words replaced in this release: they must not come back in help or JSON. */
-const RETIRED = [/\bundetermined\b/, /explicit-optimal/, /"single"/, /\bc_min/, /not finished/, /run extensions/];
+const RETIRED = [/\bundetermined\b/, /explicit-optimal/, /"single"/, /\bprobing\b/, /\bcostCap\b/, /bound-units/, /\bboundUnits\b/, /bound literals/, /"extensions"/, /\bc_min/, /not finished/, /run extensions/];
 const noRetired = (text: string, where: string) => {
   for (const r of RETIRED) expect(text, `${where} says ${r}`).not.toMatch(r);
 };
@@ -97,6 +98,8 @@ describe("--json uses the table's words", () => {
     known(audit[0].verdict, "verdict");
     known(audit[0].claim.status, "status");
     known(audit[0].claim.how, "proof");
+    // every check of the audit's checklist has its plain words
+    for (const c of audit[0].checks) expect(CHECK_WORDS[c.name], `plain words for the audit check ${c.name}`).toBeDefined();
     const rejudge = (await cli(["rejudge", cert, "--json"])).json();
     noRetired(JSON.stringify(rejudge), "rejudge --json");
     known(rejudge.verdict, "verdict");

@@ -116,7 +116,7 @@ describe("the suffix route", () => {
     // one more state pair (any pair is sound, but the CNF is no longer the proof's)
     expect(edit((j) => j.encoding.partParams["relaxed-suffix-1"].pairs.push([0, j.encoding.params.steps]))).toContain("cnf-hash");
     expect(edit((j) => (j.encoding.partParams["relaxed-suffix-1"].pairs = [[1, 1]]))).toContain("cnf-hash");
-    expect(edit((j) => (j.encoding.extensions = j.encoding.extensions.filter((p: string) => p !== "relaxed-suffix-1")))).toContain("suffix-terms");
+    expect(edit((j) => (j.encoding.parts = j.encoding.parts.filter((p: string) => p !== "relaxed-suffix-1")))).toContain("suffix-terms");
     expect(edit((j) => (j.encoding.bound -= 1))).toContain("encoding");
     expect(edit((j) => (j.plan.cost -= 1))).toContain("plan-cost");
     expect(edit((j) => (j.formatVersion = 1))).toContain("format");

@@ -2,6 +2,7 @@
 // DIMACS on stdout or in a file. Wiring only; the work is in src/optimize/formula.ts and src/encode.
 import * as fs from "node:fs";
 import type { Command } from "commander";
+import { COST_SETTING_KEY } from "../../certify/index.js";
 import { PARTS } from "../../encode/index.js";
 import { groundFiles } from "../../ground/index.js";
 import { costSetting, DEFAULT_ENCODING, estimateFormula, formulaId, OPTIMIZE_GROUNDING, planningPipeline, resolveEncoding, writeCanonicalDimacs } from "../../optimize/index.js";
@@ -87,7 +88,7 @@ export function registerEncode(program: Command, ctx: CliContext): void {
     const units = f.boundUnits(below === undefined ? Infinity : below - 1);
     const setting = costSetting(spec);
     const comments = [
-      `plumbline ${formulaId(spec)} steps=${steps} ${setting.name}=${setting.value} mutexGroups=${spec.mutexGroups.length}${below === undefined ? "" : ` query: cost <= ${below - 1}`}`,
+      `plumbline ${formulaId(spec)} steps=${steps} ${COST_SETTING_KEY[setting.name]}=${setting.value} mutexGroups=${spec.mutexGroups.length}${below === undefined ? "" : ` query: cost <= ${below - 1}`}`,
       `task after pruning: ${prepared.task.facts.length} facts, ${prepared.task.actions.length} actions; fact f at time t = 1 + t*${prepared.task.facts.length} + f, action a in step s = ${1 + (steps + 1) * prepared.task.facts.length} + (s-1)*${prepared.task.actions.length} + a`,
     ];
     const header = comments.map((c) => `c ${c}\n`).join("");
