@@ -2,7 +2,7 @@
 // best?" — with a relaxed suffix at short horizons, or at a completeness threshold — until one is
 // unsatisfiable (with its DRAT proof).
 import * as fs from "node:fs";
-import type { GroundOptions, Task } from "../ground/index.js";
+import { costModelNote, type GroundOptions, type Task } from "../ground/index.js";
 import type { HorizonReport } from "../horizon/index.js";
 import type { Model } from "../pddl/index.js";
 import { checkLandmarkCertificate, gbfs, landmarkCutAtInit } from "../search/index.js";
@@ -42,6 +42,9 @@ async function optimizeWithin(model: Model, task: Task, groundOptions: GroundOpt
     if (isLimitReached(e)) return stoppedOutcome(e.reason, (performance.now() - t0) / 1000, "analysing the task");
     throw e;
   }
+  // say what is minimised when the model does not (no action costs, or no :metric)
+  const costNote = costModelNote(model);
+  if (costNote) run.notes.push(costNote);
   try {
     return await drive(run);
   } catch (e) {

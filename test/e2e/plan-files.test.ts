@@ -76,4 +76,22 @@ describe("plan files", () => {
       expect(r.json()).toMatchObject({ valid: true, cost: OPTIMUM, length: steps.length });
     }
   });
+
+  it("a model without action costs, or without :metric, is minimised with a note saying what is minimised", async () => {
+    const G = join(import.meta.dirname, "../fixtures/pddl/gripper");
+    const unit = await cli(["solve", join(G, "domain.pddl"), join(G, "problem-2.pddl"), "--json"]);
+    expect(unit.code).toBe(0);
+    expect(unit.json().notes.join("\n")).toMatch(/no action costs: every action counts 1, so plumbline minimises the number of actions/);
+    const plan = join(tmp, "unit.plan");
+    await cli(["solve", join(G, "domain.pddl"), join(G, "problem-2.pddl"), "--plan", plan]);
+    expect(readFileSync(plan, "utf8")).toMatch(/^; cost: \d+ \(the model has no action costs: every action counts 1\)$/m);
+    const noMetric = join(tmp, "no-metric.pddl");
+    writeFileSync(noMetric, readFileSync(problem, "utf8").replace(/\(:metric minimize \(total-cost\)\)/, ""));
+    const r = await cli(["solve", domain, noMetric, "--json"]);
+    expect(r.json().cost).toBe(OPTIMUM);
+    expect(r.json().notes.join("\n")).toMatch(/no \(:metric minimize \(total-cost\)\): plumbline minimises total-cost/);
+    const s = await cli(["search", domain, noMetric]);
+    expect(s.stderr).toMatch(/note: the problem has no \(:metric/);
+    expect((await cli(["solve", domain, problem, "--json"])).json().notes.join("\n")).not.toMatch(/metric|no action costs/);
+  });
 });
