@@ -262,7 +262,7 @@ function auditPlan(c: Checks, dir: string, cert: CertificateJson, model: Model, 
     c.fail("plan-replay", `${FILES.plan} cannot be read as a plan: ${(e as Error).message}`);
     return;
   }
-  if (!c.check("plan-replay", r.valid, `the plan replays on the lifted model and reaches the goal (${r.length} steps)`, `the plan fails: ${r.error?.message ?? "invalid"}`)) {
+  if (!c.check("plan-replay", r.valid, `the plan replays on the lifted model and reaches the goal (${r.length} actions)`, `the plan fails: ${r.error?.message ?? "invalid"}`)) {
     c.skip("plan-cost", "the plan does not replay");
     return;
   }
@@ -272,7 +272,7 @@ function auditPlan(c: Checks, dir: string, cert: CertificateJson, model: Model, 
     "plan-cost",
     r.cost === plan.cost && r.length === plan.length,
     `replayed cost ${r.cost} and length ${r.length} equal the claim`,
-    `the replayed plan costs ${r.cost} with ${r.length} steps; the certificate claims cost ${plan.cost} with ${plan.length} steps`,
+    `the replayed plan costs ${r.cost} with ${r.length} actions; the certificate claims cost ${plan.cost} with ${plan.length} actions`,
   );
 }
 

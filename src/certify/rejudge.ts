@@ -102,14 +102,14 @@ function replayRecorded(model: Model, planText: string, planFile: string): { val
     if (!isPlumblineError(e) || !e.pos) throw e;
     const k = steps.findIndex((s) => s.line === e.pos!.line);
     const step = k >= 0 ? k + 1 : 1;
-    return { valid: false, cost: null, failure: { step, action: k >= 0 ? stepText(steps[k]) : null, kind: "unknown-step", condition: e.detail, message: `step ${step}: ${e.detail}` } };
+    return { valid: false, cost: null, failure: { step, action: k >= 0 ? stepText(steps[k]) : null, kind: "unknown-step", condition: e.detail, message: `action ${step}: ${e.detail}` } };
   }
   if (r.valid) return { valid: true, cost: r.cost, failure: null };
   const er = r.error!;
   if (er.kind === "name") {
     // a step naming no action or object of the model (replay reports it as an invalid plan)
     const detail = er.message.replace(/^.*?:\d+:\d+: /, "");
-    return { valid: false, cost: null, failure: { step: er.step, action: er.action, kind: "unknown-step", condition: detail, message: `step ${er.step}: ${detail}` } };
+    return { valid: false, cost: null, failure: { step: er.step, action: er.action, kind: "unknown-step", condition: detail, message: `action ${er.step}: ${detail}` } };
   }
   return { valid: false, cost: null, failure: { step: er.step, action: er.action, kind: er.kind, condition: er.literal, message: er.message } };
 }

@@ -135,7 +135,7 @@ export function planTimelineChart(steps: ReadonlyArray<{ name: string; args: str
       el(
         "rect",
         { x: bx + 1, y: plotY1(f) + lane * laneH + 4, width: bw, height: laneH - 8, rx: 3, fill: colourOf(schemas.indexOf(s.name)), class: s.cost === 0 ? "step zero" : "step" },
-        title(`step ${i + 1}: (${[s.name, ...s.args].join(" ")}), cost ${s.cost}, total so far ${cum}`),
+        title(`action ${i + 1}: (${[s.name, ...s.args].join(" ")}), cost ${s.cost}, total so far ${cum}`),
       ),
     );
   });

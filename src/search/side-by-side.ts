@@ -38,7 +38,7 @@ export function sideBySide(left: Column, right?: Column): string {
     lines.push(line.trimEnd());
   }
   if (left.flag && left.flag.step > rows) lines.push(`   ${pad("end", numW)} ${left.flag.note}`);
-  if (right && div >= 0) lines.push(`(>> marks the first step where the plans differ: step ${div + 1})`);
+  if (right && div >= 0) lines.push(`(>> marks the first action where the plans differ: action ${div + 1})`);
   if (right && div < 0) lines.push("(the plans are identical)");
   return lines.join("\n");
 }

@@ -78,7 +78,7 @@ describe("SVG output", () => {
     checkWellFormed(svg);
     expect(svg.match(/<rect [^>]*class="step( zero)?"/g)).toHaveLength(3);
     expect(svg.match(/class="step zero"/g)).toHaveLength(1);
-    expect(svg).toContain("step 3: (drive t2 b a), cost 4, total so far 7");
+    expect(svg).toContain("action 3: (drive t2 b a), cost 4, total so far 7");
     expect(svg).toContain(">crane&lt;1&gt;</text>");
   });
 
