@@ -5,6 +5,7 @@ import type { AuditView, CertificateView } from "./certificate-view.js";
 import { findField, isObj } from "./certificate-view.js";
 import { boundsChart, planTimelineChart } from "./charts.js";
 import { badge, htmlTable, page, section, tile } from "./html.js";
+import { checkWords } from "../certify/check-words.js";
 import { esc } from "./svg.js";
 import { formatSeconds } from "./text-table.js";
 
@@ -97,7 +98,8 @@ function auditSection(a: AuditView): string {
   const source = a.source === "run" ? "audited just now" : a.source === "recorded" ? "recorded by an earlier audit (not re-run)" : "not audited";
   const head = `<p>${badge(a.status)} <span class="note">${esc(source)}${a.seconds !== null ? `, ${esc(formatSeconds(a.seconds))}` : ""}${a.note ? ` — ${esc(a.note)}` : ""}</span></p>`;
   if (!a.checks.length) return head;
-  return head + htmlTable(["check", "result", "detail"], a.checks.map((c) => [esc(c.name), c.ok === null ? "–" : badge(c.ok ? "valid" : "invalid").replace(/>valid</, ">passed<").replace(/>invalid</, ">FAILED<"), `<span class="note">${esc(c.detail)}</span>`]), { left: [1, 2] });
+  // each check in plain words first (certify/check-words.ts), its name and technical detail beside it
+  return head + htmlTable(["check", "result", "detail"], a.checks.map((c) => [`${esc(checkWords(c.name))} <span class="note">(${esc(c.name)})</span>`, c.ok === null ? "–" : badge(c.ok ? "valid" : "invalid").replace(/>valid</, ">passed<").replace(/>invalid</, ">FAILED<"), `<span class="note">${esc(c.detail)}</span>`]), { left: [1, 2] });
 }
 
 export function certificateReportHtml(v: CertificateView, audit: AuditView): string {
@@ -129,8 +131,8 @@ export function certificateReportHtml(v: CertificateView, audit: AuditView): str
       return [String(i + 1), `<span class="mono">(${esc([s.name, ...s.args].join(" "))})</span>`, String(s.cost), String(cum)];
     });
     planBody =
-      (v.plan.length ? `<figure>${planTimelineChart(v.plan)}<figcaption>One block per step, in the lane of the step's first argument (usually who acts); colour by action. Hover a block for its cost.</figcaption></figure>` : `<p>The goal holds in the initial state: the empty plan.</p>`) +
-      `<details${v.plan.length <= 40 ? " open" : ""}><summary>Plan steps (${v.plan.length})</summary><div class="scroll">${htmlTable(["step", "action", "cost", "total"], rows, { left: [1] })}</div></details>` +
+      (v.plan.length ? `<figure>${planTimelineChart(v.plan)}<figcaption>One block per action, in the lane of its first argument (usually who acts); colour by kind of action. Hover a block for its cost.</figcaption></figure>` : `<p>The goal holds in the initial state: the empty plan.</p>`) +
+      `<details${v.plan.length <= 40 ? " open" : ""}><summary>Plan actions (${v.plan.length})</summary><div class="scroll">${htmlTable(["#", "action", "cost", "total"], rows, { left: [1] })}</div></details>` +
       (v.planNote ? `<p class="note"><strong>${esc(v.planNote)}</strong></p>` : `<p class="note">Costs from replaying plan.txt on the lifted model in this folder: total ${v.planCost}.</p>`);
   } else planBody = `<p class="note">${esc(v.planNote ?? "no plan")}</p>`;
   parts.push(section("Plan", planBody, "plan"));

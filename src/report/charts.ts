@@ -144,7 +144,7 @@ export function planTimelineChart(steps: ReadonlyArray<{ name: string; args: str
     parts.push(el("text", { x: x(t), y: plotY0(f) + 16, class: "tick", "text-anchor": "middle" }, text(t)));
   }
   parts.push(el("line", { x1: plotX0(f), x2: plotX1(f), y1: plotY0(f), y2: plotY0(f), class: "axis" }));
-  parts.push(el("text", { x: (plotX0(f) + plotX1(f)) / 2, y: f.height - 8, class: "axis-title", "text-anchor": "middle" }, text("plan step (pale blocks cost nothing)")));
+  parts.push(el("text", { x: (plotX0(f) + plotX1(f)) / 2, y: f.height - 8, class: "axis-title", "text-anchor": "middle" }, text("action number (pale blocks cost nothing)")));
   parts.push(legend(f, schemas.map((s, i) => ({ label: s, colour: colourOf(i), marker: true }))));
   return svgDoc(f.width, f.height, `plan of ${steps.length} steps as a timeline, lanes by first argument`, ...parts);
 }
