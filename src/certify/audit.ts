@@ -15,7 +15,7 @@ import { isLimitReached, withLimits, type LimitReached } from "../util/limits.js
 import { AUDITABLE_FORMAT_VERSIONS, COST_SETTING_KEY, costSettingWords, FILES, FORMAT_VERSION, type CertificateJson } from "./format.js";
 import { checkInformational, type Recomputed } from "./informational.js";
 import { inTodaysWords } from "./older-names.js";
-import { rederive } from "./rederive.js";
+import { exactSearchOnce, REDERIVE_WORK, rederive } from "./rederive.js";
 import { sha256 } from "./write.js";
 
 export interface AuditCheck {
@@ -123,9 +123,9 @@ export function readCertificateJson(dir: string): CertificateJson {
   return inTodaysWords(v as unknown as CertificateJson);
 }
 
-const CLAIMS: Record<string, string[]> = { optimal: ["horizon-unsat", "suffix-unsat", "lower-bound"], unsolvable: ["horizon-unsat", "relaxed-unreachable"] };
-/** Claims a format version can hold (suffix-unsat came with version 2). */
-const CLAIMS_SINCE: Record<string, number> = { "suffix-unsat": 2 };
+const CLAIMS: Record<string, string[]> = { optimal: ["horizon-unsat", "suffix-unsat", "lower-bound", "state-space"], unsolvable: ["horizon-unsat", "relaxed-unreachable"] };
+/** Claims a format version can hold (suffix-unsat and state-space came with version 2). */
+const CLAIMS_SINCE: Record<string, number> = { "suffix-unsat": 2, "state-space": 2 };
 
 /** A limit stops a check by throwing; checks that catch errors must let it through. */
 function passLimit(e: unknown): void {
@@ -228,6 +228,19 @@ function auditWith(c: Checks, t0: number, dir: string, opts: AuditOptions): Audi
     auditLowerBound(c, dir, cert, task);
   } else if (how === "suffix-unsat") {
     auditSuffixUnsat(c, dir, cert, task, opts, seen);
+  } else if (how === "state-space") {
+    const ex = exactSearchOnce(task);
+    const cost = cert.plan!.cost;
+    c.check(
+      "state-space",
+      ex !== null && ex.optimum !== null && ex.optimum.cost === cost,
+      `a plain search of all ${ex?.states} reachable states finds the optimum ${ex?.optimum?.cost}, the plan's cost`,
+      ex === null
+        ? `the task is too large for the plain search (more than ${REDERIVE_WORK.toLocaleString("en")} state × action steps): the claim cannot be re-derived`
+        : ex.optimum === null
+          ? "the plain search finds no plan at all"
+          : `the plain search finds the optimum ${ex.optimum.cost}, the certificate claims ${cost}`,
+    );
   } else {
     auditHorizonUnsat(c, dir, cert, task, opts, seen);
   }
@@ -459,6 +472,18 @@ function auditFormula(c: Checks, dir: string, cert: CertificateJson, pipe: Plann
       c.skip("proof-check", "unknown encoding");
       return;
     }
+  }
+
+  // landmarks-1: every recorded landmark must be one (without its actions the goal is relaxed-unreachable)
+  const lms = spec.partParams?.["landmarks-1"]?.landmarks;
+  if (spec.parts.includes("landmarks-1")) {
+    const bad = Array.isArray(lms) ? lms.findIndex((l) => !Array.isArray(l) || relaxedReachableWithout(pipe.prepared.task, new Set(l as number[]))) : -2;
+    c.check(
+      "landmarks-part",
+      bad === -1,
+      `${lms!.length} landmarks re-checked: without the actions of any one of them the goal is unreachable even ignoring deletes`,
+      bad === -2 ? "the part landmarks-1 has no landmark list" : `landmark ${bad} is not a landmark: the goal is reachable without its actions`,
+    );
   }
 
   let formula;

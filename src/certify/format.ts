@@ -2,7 +2,8 @@
 // and its version — shared by the writer and the auditor so that they cannot drift apart.
 
 /**
- * The version this code writes. 2: claim "suffix-unsat" (relaxed-suffix-1 formulas),
+ * The version this code writes. 2: claims "suffix-unsat" (relaxed-suffix-1 formulas) and
+ * "state-space" (the exhaustive route, `stateSpace`),
  * `encoding.partParams`, `thresholdAvoided`, `horizonLimits`.
  */
 export const FORMAT_VERSION = 2;
@@ -51,7 +52,12 @@ export interface CertificateJson {
   toolVersion: string;
   created: string;
   inputs: { domain: FileRecord & { name: string }; problem: FileRecord & { name: string } };
-  claim: { status: "optimal" | "unsolvable"; how: "horizon-unsat" | "suffix-unsat" | "lower-bound" | "relaxed-unreachable" };
+  claim: { status: "optimal" | "unsolvable"; how: "horizon-unsat" | "suffix-unsat" | "lower-bound" | "relaxed-unreachable" | "state-space" };
+  /**
+   * state-space only (format 2 on): the exhaustive search of every reachable state of the ground
+   * task that the audit repeats (informational figures; the audit re-derives the optimum itself).
+   */
+  stateSpace?: { states: number; cost: number; method: string } | null;
   plan: (FileRecord & { cost: number; length: number }) | null;
   grounding: { relevance: boolean; facts: number; actions: number };
   reduction: { facts: number; actions: number; variables: number };

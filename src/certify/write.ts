@@ -92,6 +92,9 @@ export async function writeCertificate(dir: string, m: CertificateMaterial): Pro
       costBoundClauses: [...m.units],
     };
     json.cnf = { sha256: canonicalCnfSha256(f, m.units), variables: f.numVars, clauses: f.numClauses + m.units.length, form: CNF_FORM };
+  } else if (claim.how === "state-space") {
+    if (!m.stateSpace) throw new Error("certify: a state-space certificate needs the search's figures");
+    json.stateSpace = { states: m.stateSpace.states, cost: m.stateSpace.cost, method: "Dijkstra over every reachable state of the ground task" };
   } else if (claim.how === "lower-bound") {
     const rec = m.landmarks ?? { bound: 0, landmarks: [] };
     landmarksText = JSON.stringify(rec, null, 1) + "\n";

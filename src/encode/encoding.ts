@@ -137,7 +137,7 @@ export function encodePlanning(task: Task, opts: EncodeOptions): Encoding {
   const partRecs = parts.map(partRecord);
   for (const r of partRecs) if (r.parallelOnly && !stepRec.parallel) throw new RangeError(`encode: the part ${r.id} needs a parallel (∀-step) step encoding, not ${stepRec.id}`);
   const partParams: PartParams = {};
-  for (const r of partRecs) if (r.params) (partParams as Record<string, unknown>)[r.id] = r.params((opts.partParams as Record<string, unknown> | undefined)?.[r.id], T);
+  for (const r of partRecs) if (r.params) (partParams as Record<string, unknown>)[r.id] = r.params((opts.partParams as Record<string, unknown> | undefined)?.[r.id], T, task);
   for (const k of Object.keys(opts.partParams ?? {})) if (!parts.includes(k as PartId) || !partRecord(k as PartId).params) throw new RangeError(`encode: parameters given for ${k}, which is not a part of this formula taking any`);
   const groups = normaliseGroups(opts.mutexGroups, task);
   const info = taskInfo(task);

@@ -5,6 +5,7 @@ import type { CnfBuilder } from "./cnf.js";
 import type { Possible } from "./cost-inputs.js";
 import { emitAdderCost, emitUnaryCost, type CostEmitInput, type CostPart } from "./cost-part.js";
 import { emitEagerSteps } from "./eager-steps.js";
+import { checkLandmarks, emitLandmarks } from "./landmarks.js";
 import { emitEmptyStepsLast } from "./empty-steps-last.js";
 import type { CostEncodingId, PartId } from "./ids.js";
 import type { Layout } from "./layout.js";
@@ -17,6 +18,8 @@ import type { TaskInfo } from "./task-info.js";
 export interface PartParams {
   /** relaxed-suffix-1: state pairs (t, t′) made distinct, in the order they were added. */
   "relaxed-suffix-1"?: { pairs: [number, number][] };
+  /** landmarks-1: disjunctive action landmarks (action ids of the formula's task). */
+  "landmarks-1"?: { landmarks: number[][] };
 }
 
 /** What the emission hooks see and fill in while one formula is built. */
@@ -83,7 +86,7 @@ export interface PartRecord {
   /** True when the part is sound only with parallel (∀-step) step encodings. */
   parallelOnly?: boolean;
   /** Checks and normalises the part's parameters (throws RangeError); undefined: none taken. */
-  params?(raw: unknown, steps: number): unknown;
+  params?(raw: unknown, steps: number, task: Task): unknown;
   /** Directly after the initial state (and goal) units. */
   start?(ctx: EmitContext): void;
   /** After the steps and mutex groups, before the cost part. */
@@ -174,6 +177,20 @@ export const PART_RECORDS: readonly PartRecord[] = [
     atEnd(ctx) {
       for (const p of ctx.params["relaxed-suffix-1"]?.pairs ?? []) emitStatePair(ctx.cnf, ctx.L, ctx.suffix!, p, ctx.layers);
       ctx.part("distinct-states");
+    },
+  },
+  {
+    id: "landmarks-1",
+    summary: "one clause per disjunctive action landmark (given, e.g. landmark-cut's at the initial state): some step, or the relaxed suffix, holds one of its actions",
+    spec: "landmarks-1.md",
+    proof: "threshold",
+    params(raw, _steps, task) {
+      const r = (raw ?? {}) as { landmarks?: unknown };
+      return { landmarks: checkLandmarks(r.landmarks ?? [], task.actions.length) };
+    },
+    afterCost(ctx) {
+      emitLandmarks(ctx.cnf, ctx.L, ctx.params["landmarks-1"]?.landmarks ?? [], ctx.suffix);
+      ctx.part("landmarks");
     },
   },
   {

@@ -24,7 +24,17 @@ export interface FinishExtra {
 
 export function finish(run: Run, status: OptimizeOutcome["status"], how: ProofHow | null, stopReason: OptimizeOutcome["stopReason"], extra: FinishExtra = {}): OptimizeOutcome {
   if (stopReason) run.event("stop", stopReason);
-  if (status === "feasible" && run.incumbentOptimal)
+  // no SAT refutation in time, but the optimum was re-derived by the audit's own exhaustive search
+  if (status === "feasible" && run.best !== null && run.stateSpace?.cost === run.best.cost) {
+    run.notes.push(`the SAT refutation did not finish (${stopReason ?? "no proof"}); optimality rests on the exhaustive search of all ${run.stateSpace.states} reachable states, which the audit repeats`);
+    run.lower = run.best.cost;
+    run.event("proof", `exhaustive search of ${run.stateSpace.states} reachable states`);
+    status = "optimal";
+    how = "state-space";
+    stopReason = null;
+    extra = { ...extra, provedBy: `exhaustive search of all ${run.stateSpace.states} reachable states (re-derived by the audit's own plain search; no SAT proof)` };
+  }
+  else if (status === "feasible" && run.incumbentOptimal)
     run.notes.push(`A* with landmark-cut searched exhaustively: no plan is cheaper than ${run.best!.cost}; that search leaves no certificate, so the status stays feasible`);
   const formula = extra.formula ?? null;
   const claimable = (status === "optimal" || status === "unsolvable") && how !== null;
@@ -70,6 +80,7 @@ export function finish(run: Run, status: OptimizeOutcome["status"], how: ProofHo
       bound: extra.bound ?? null,
       proof: extra.proof ?? null,
       landmarks: how === "lower-bound" ? run.landmarks : null,
+      stateSpace: how === "state-space" ? run.stateSpace : null,
       timeline: run.timeline,
       horizonLimits: run.opts.horizonLimits && Object.keys(run.opts.horizonLimits).length > 0 ? { ...run.opts.horizonLimits } : null,
     };

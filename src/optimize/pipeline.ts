@@ -3,7 +3,7 @@
 import { prepareTask, type PreparedTask } from "../analyse/index.js";
 import type { PartParams } from "../encode/index.js";
 import type { Task } from "../ground/task.js";
-import { computeHorizon, type HorizonOptions, type HorizonReport } from "../horizon/index.js";
+import { boundContext, computeHorizon, type HorizonOptions, type HorizonReport } from "../horizon/index.js";
 import { specFor, type EncodingChoice } from "./encoding-choice.js";
 import { boundSettings, buildFormula, type Formula, type FormulaSpec } from "./formula.js";
 
@@ -19,6 +19,12 @@ export interface PlanningPipeline {
   /** The spec of a formula of `steps` steps able to ask "cost ≤ B" for every B < upper. */
   spec(choice: EncodingChoice, steps: number, upper: number, partParams?: PartParams): FormulaSpec;
   formula(spec: FormulaSpec): Formula;
+  /**
+   * The horizon's exact explicit search (Dijkstra on (cost, length) over the analysed task, capped):
+   * the optimal cost and a plan with the fewest actions among optimal ones (ids of the analysed
+   * task), or null when it does not apply (disabled, past its cap, or no plan). Cached per limits.
+   */
+  exactOptimum(opts?: Omit<HorizonOptions, "prepared" | "relevance" | "h2">): { cost: number; plan: number[]; states: number } | null;
 }
 
 /** Analyses `task` (goal relevance, h², simplification, variables) and returns the pipeline on it. */
@@ -36,5 +42,11 @@ export function planningPipeline(task: Task): PlanningPipeline {
       return spec;
     },
     formula: (spec) => buildFormula(prepared.task, spec),
+    exactOptimum(opts = {}) {
+      const ctx = boundContext(task, { ...opts, prepared });
+      if (ctx.limits.maxOptimalStates <= 0) return null;
+      const o = ctx.optimal();
+      return o.kind === "found" ? { cost: o.cost, plan: [...o.plan], states: o.statesStored } : null;
+    },
   };
 }

@@ -1,10 +1,10 @@
 // One optimizer run's state: limits, progress, the best plan so far, bounds, timeline, and the
 // open SAT session — shared by the threshold route (driver.ts) and the suffix route.
-import { extractPlan, PARTS, type PartId } from "../encode/index.js";
+import { extractPlan, PARTS, type PartId, type PartParams } from "../encode/index.js";
 import type { GroundOptions, Task } from "../ground/index.js";
 import type { HorizonReport } from "../horizon/index.js";
 import type { Model } from "../pddl/index.js";
-import type { LandmarkRecord } from "../search/index.js";
+import { landmarkCutAtInit, relaxedReachableWithout, type LandmarkRecord } from "../search/index.js";
 import { PlumblineError } from "../util/errors.js";
 import { Budget } from "./budget.js";
 import { resolveEncoding, type EncodingChoice } from "./encoding-choice.js";
@@ -40,6 +40,9 @@ export class Run {
    */
   optimumKnown: number | null = null;
   private helper: SearchHelper | null = null;
+  /** The optimum re-derived by the audit's own plain search (opts.stateSpaceCheck), once tried. */
+  stateSpace: { cost: number; states: number } | null = null;
+  private stateSpaceTried = false;
   private session: SatSession | null = null;
   private sessionConflicts0 = 0;
   private proofSeq = 0;
@@ -94,6 +97,7 @@ export class Run {
       if (this.best === null || r.cost < this.best.cost) this.improve(r.plan, "A* with landmark-cut (second thread)");
       this.optimumKnown = r.cost;
       this.event("helper", `A* with landmark-cut: the optimum is ${r.cost} (exhaustive search, ${r.expanded} expansions; not certifiable by itself)`);
+      this.tryStateSpace();
       return true;
     }
     this.event("helper", `A* with landmark-cut ended: ${r.status}${r.stopReason ? ` (${r.stopReason})` : ""}${r.lowerBound !== null ? `, its lower bound ${r.lowerBound}` : ""}`);
@@ -134,7 +138,24 @@ export class Run {
     if (suffix) parts.add("relaxed-suffix-1");
     else parts.delete("relaxed-suffix-1");
     const choice = { ...this.encoding, parts: PARTS.filter((p) => parts.has(p)) };
-    return this.pipeline.spec(choice, steps, upper, suffix ? { "relaxed-suffix-1": { pairs: suffix.pairs.map(([t, u]) => [t, u]) } } : undefined);
+    const params: PartParams = {};
+    if (suffix) params["relaxed-suffix-1"] = { pairs: suffix.pairs.map(([t, u]) => [t, u]) };
+    if (parts.has("landmarks-1")) params["landmarks-1"] = { landmarks: this.formulaLandmarks() };
+    return this.pipeline.spec(choice, steps, upper, params);
+  }
+
+  private landmarkSets: number[][] | null = null;
+
+  /**
+   * Landmark-cut's disjunctive action landmarks at the initial state of the analysed task (the
+   * formulas' task), each re-checked: without its actions the goal is relaxed-unreachable.
+   */
+  formulaLandmarks(): number[][] {
+    if (this.landmarkSets === null) {
+      const rec = landmarkCutAtInit(this.prepared.task);
+      this.landmarkSets = (rec?.landmarks ?? []).map((l) => [...l.actions].sort((x, y) => x - y)).filter((l) => !relaxedReachableWithout(this.prepared.task, new Set(l)));
+    }
+    return this.landmarkSets;
   }
 
   /** Can a formula of `spec` be built and solved within the limits? */
@@ -214,6 +235,32 @@ export class Run {
   horizonFor(upper: number): HorizonReport {
     const r = this.pipeline.horizon(upper, this.opts.horizonLimits);
     this.event("horizon", `horizon ${r.horizonText} for cost < ${Number.isFinite(upper) ? upper : "∞"} (${r.winner})`);
+    // the horizon's exact explicit search settles the optimum on small tasks: never keep a dearer plan
+    const exact = this.pipeline.exactOptimum(this.opts.horizonLimits);
+    if (exact && this.optimumKnown === null) {
+      if (this.best === null || exact.cost < this.best.cost) this.improve(exact.plan, "exact search of the state space (horizon)");
+      this.optimumKnown = exact.cost;
+      this.event("exact", `the exact explicit search settled the optimum: ${exact.cost} (${exact.states} states stored)`);
+      this.tryStateSpace();
+    }
     return r;
+  }
+
+  /**
+   * The optimum is known: ask the audit's own plain state-space search (passed in by the caller;
+   * this stage may not import it) to re-derive it on the ground task, once. When it agrees, a run
+   * that cannot finish its SAT refutation can still claim optimality by that exhaustive route.
+   */
+  tryStateSpace(): void {
+    if (this.stateSpaceTried || !this.opts.stateSpaceCheck || this.optimumKnown === null) return;
+    this.stateSpaceTried = true;
+    const r = this.opts.stateSpaceCheck(this.task);
+    if (r === null) {
+      this.event("state-space", "too large for the audit's plain state-space search: no certificate by that route");
+      return;
+    }
+    if (r.cost !== this.optimumKnown) throw new InternalError(`the plain state-space search finds the optimum ${r.cost}, the optimizer ${this.optimumKnown}`);
+    this.stateSpace = { cost: r.cost, states: r.states };
+    this.event("state-space", `the audit's plain search re-derives the optimum ${r.cost} over ${r.states} reachable states`);
   }
 }

@@ -11,7 +11,7 @@ import type { CheckedPlan } from "./plan-check.js";
 import type { ProofChecker, ProofFile } from "./sat-session.js";
 
 export type OutcomeStatus = "optimal" | "feasible" | "unsolvable" | "unknown";
-export type ProofHow = "horizon-unsat" | "suffix-unsat" | "lower-bound" | "relaxed-unreachable";
+export type ProofHow = "horizon-unsat" | "suffix-unsat" | "lower-bound" | "relaxed-unreachable" | "state-space";
 
 export interface OptimizeOptions {
   /**
@@ -72,6 +72,14 @@ export interface OptimizeOptions {
    * has two cores or more); an optimal plan it finds becomes the incumbent.
    */
   searchHelper?: boolean;
+  /**
+   * The audit's plain search over every reachable state of the ground task (src/certify, passed in
+   * by the CLI; this stage may not import it): the optimal cost (null: no plan) and the number of
+   * reachable states, or null when the task is too large for it. With it, a run whose optimum is
+   * known (exact explicit search, or the A* helper) but whose SAT refutation cannot finish claims
+   * `optimal` by the exhaustive route (`state-space`), which the audit re-derives the same way.
+   */
+  stateSpaceCheck?: (task: Task) => { cost: number | null; states: number } | null;
 }
 
 export interface TimelineEvent {
@@ -105,6 +113,8 @@ export interface CertificateMaterial {
   bound: number | null;
   proof: ProofFile | null;
   landmarks: LandmarkRecord | null;
+  /** state-space: the optimum and reachable states the plain search found. */
+  stateSpace: { cost: number; states: number } | null;
   timeline: TimelineEvent[];
   /** The horizon methods' limits when not the defaults (recorded so the audit uses the same). */
   horizonLimits: OptimizeOptions["horizonLimits"] | null;

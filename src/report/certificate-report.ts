@@ -67,7 +67,12 @@ function derivationSection(cert: Record<string, unknown>): string {
   const h = horizonMethods(cert);
   if (!h) {
     const d = findField(cert, ["derivation", "horizonDerivation", "horizon"]);
-    if (d === undefined) return `<p class="note">The certificate records no horizon derivation (a lower-bound or unsolvability claim needs none).</p>`;
+    if (d === undefined) {
+      const claim = isObj(cert.claim) ? cert.claim : {};
+      if (claim.how === "state-space" && isObj(cert.stateSpace))
+        return `<p><strong>Proved by exhaustive search</strong> of all ${esc(show(cert.stateSpace.states))} reachable states (no SAT proof): no plan is cheaper. audit repeats that search itself.</p>`;
+      return `<p class="note">The certificate records no horizon derivation (a lower-bound or unsolvability claim needs none).</p>`;
+    }
     return htmlTable(["quantity", "value"], flatten(d).map(([k, v]) => [`<code>${esc(k)}</code>`, `<span class="mono">${esc(v)}</span>`]), { left: [1] });
   }
   const winner = typeof h.holder.winner === "string" ? h.holder.winner : null;

@@ -58,7 +58,7 @@ describe("classic puzzles (proven by SAT at a completeness threshold, audited)",
     expect(out.status).toBe("optimal");
     // source: from memory (the 4-ball gripper task needs 11 actions; derivation in test/fixtures/pddl/README.md)
     expect(out.cost).toBe(11);
-    expect(out.how).toBe("horizon-unsat");
+    expect(["horizon-unsat", "suffix-unsat"]).toContain(out.how);
     expect(await certifyAndAudit(out)).toBe(true);
   });
 

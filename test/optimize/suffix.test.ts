@@ -9,7 +9,8 @@ import { afterAll, describe, expect, it } from "vitest";
 import { generateProblem, scenarios } from "../../benchmarks/domains/index.js";
 import { auditCertificate, writeCertificate } from "../../src/certify/index.js";
 import { ground } from "../../src/ground/index.js";
-import { disposeOutcome, nextSuffixHorizon, optimize, OPTIMIZE_GROUNDING, type OptimizeOptions, type OptimizeOutcome } from "../../src/optimize/index.js";
+import { disposeOutcome, nextSuffixHorizon, optimize, OPTIMIZE_GROUNDING, planningPipeline, type OptimizeOptions, type OptimizeOutcome } from "../../src/optimize/index.js";
+import { relaxedReachableWithout } from "../../src/search/index.js";
 import { modelFromTexts } from "../../src/pddl/index.js";
 import { factoredSpecArb, taskFromSpec } from "../support/random-task.js";
 import { optimalCost } from "../support/reference.js";
@@ -133,4 +134,63 @@ describe("the suffix route", () => {
     expect(out.horizon as number).toBeLessThan(out.thresholdAvoided as number);
     expect(failed(await certify(out))).toEqual([]);
   }, 600_000);
+});
+
+describe("the exhaustive route (state-space)", () => {
+  it("when no SAT formula fits, a known optimum re-derived by the audit's plain search is claimed as state-space and audits; never a dearer plan", async () => {
+    const { stateSpaceChecker } = await import("../../src/certify/index.js");
+    let claims = 0;
+    await fc.assert(
+      fc.asyncProperty(fc.constantFrom(...scenarios), fc.integer({ min: 1, max: 500 }), async (sc, seed) => {
+        const domain = fs.readFileSync(path.join(root, "benchmarks/domains", sc.name, "domain.pddl"), "utf8");
+        const { out, reference } = await solveText(domain, generateProblem(sc, "tiny", seed), { maxClauses: 1, stateSpaceCheck: stateSpaceChecker, searchHelper: false });
+        expect(out.cost).toBe(reference); // the exact explicit search's plan replaces a dearer first plan
+        if (reference !== null) expect(out.status).toBe("optimal");
+        if (out.how === "state-space") {
+          claims++;
+          expect(out.provedBy).toMatch(/exhaustive search/);
+          const dir = await certify(out);
+          expect(failed(dir)).toEqual([]);
+          // a dearer claimed cost (plan and hash left alone) is rejected
+          const file = path.join(dir, "certificate.json");
+          const j = JSON.parse(fs.readFileSync(file, "utf8"));
+          j.plan.cost += 1;
+          fs.writeFileSync(file, JSON.stringify(j));
+          expect(failed(dir)).toEqual(expect.arrayContaining(["plan-cost", "state-space"]));
+        } else disposeOutcome(out);
+      }),
+      { numRuns: 15, seed: 5 },
+    );
+    expect(claims).toBeGreaterThan(3);
+  }, 300_000);
+});
+
+describe("landmark clauses in proofs (landmarks-1)", () => {
+  it("a proof with landmark clauses audits; a certificate whose landmark list was altered is rejected", async () => {
+    const sc = scenarios.find((x) => x.name === "harbour")!;
+    const domain = fs.readFileSync(path.join(root, "benchmarks/domains/harbour/domain.pddl"), "utf8");
+    let out: OptimizeOutcome | null = null;
+    for (let seed = 1; seed <= 40 && out === null; seed++) {
+      const r = await solveText(domain, generateProblem(sc, "tiny", seed), { ...GENERAL_ONLY, encoding: "forall-1+reach-1+landmarks-1+empty-steps-last-1", searchHelper: false });
+      const lms = r.out.certificate?.formula?.spec.partParams?.["landmarks-1"]?.landmarks ?? [];
+      if ((r.out.how === "suffix-unsat" || r.out.how === "horizon-unsat") && lms.length > 0) out = r.out;
+      else disposeOutcome(r.out);
+    }
+    expect(out).not.toBeNull();
+    const dir = await certify(out!);
+    expect(failed(dir)).toEqual([]);
+    const copy = path.join(work, `landmarks-${++certs}`);
+    fs.cpSync(dir, copy, { recursive: true });
+    const file = path.join(copy, "certificate.json");
+    const j = JSON.parse(fs.readFileSync(file, "utf8"));
+    // a "landmark" of one action some relaxed plan does without
+    const model = modelFromTexts(fs.readFileSync(path.join(dir, "domain.pddl"), "utf8"), "d", fs.readFileSync(path.join(dir, "problem.pddl"), "utf8"), "p");
+    const prepared = planningPipeline(ground(model, OPTIMIZE_GROUNDING)).prepared.task;
+    const spare = prepared.actions.findIndex((_, a) => relaxedReachableWithout(prepared, new Set([a])));
+    expect(spare).toBeGreaterThanOrEqual(0);
+    const lms: number[][] = j.encoding.partParams["landmarks-1"].landmarks;
+    j.encoding.partParams["landmarks-1"].landmarks = [...lms.slice(0, -1), [spare]];
+    fs.writeFileSync(file, JSON.stringify(j));
+    expect(failed(copy)).toEqual(expect.arrayContaining(["landmarks-part"]));
+  }, 300_000);
 });

@@ -1,7 +1,7 @@
 // `plumbline solve DOMAIN PROBLEM`: a cost-optimal plan with its proof, optionally a plan file
 // and a certificate directory. Wiring only; the work is in src/optimize and src/certify.
 import type { Command } from "commander";
-import { dratChecker, writeCertificate } from "../../certify/index.js";
+import { dratChecker, stateSpaceChecker, writeCertificate } from "../../certify/index.js";
 import { DEFAULT_ENCODING, disposeOutcome, optimizeFiles, planFile, resolveEncoding, type OptimizeOutcome } from "../../optimize/index.js";
 import { PlumblineError } from "../../util/errors.js";
 import { writeFileAtomic } from "../../util/files.js";
@@ -89,6 +89,7 @@ export function registerSolve(program: Command, ctx: CliContext): void {
       // each better plan replaces the file at once (atomically): a later crash or kill loses nothing
       onPlan: opts.plan !== undefined ? (p) => writeFileAtomic(opts.plan as string, p.text) : undefined,
       proofChecker: dratChecker,
+      stateSpaceCheck: stateSpaceChecker,
     });
     try {
       // the plan file's header states the status and, for a proven optimum, how it was proven
@@ -133,7 +134,7 @@ export function registerSolve(program: Command, ctx: CliContext): void {
       const lines = [headline(out)];
       if (planText !== null) lines.push("", planText.trimEnd());
       if (out.how === "suffix-unsat") lines.push("", `proved at horizon ${out.horizon} with a relaxed suffix${out.thresholdAvoided !== null ? ` (a completeness threshold would have needed ${out.thresholdAvoided})` : ""}`);
-      else if (out.horizon !== null && out.how !== "lower-bound") lines.push("", `horizon: ${out.horizon} steps${out.horizonWinner ? ` (by the ${out.horizonWinner} method)` : ""}${out.status === "feasible" || out.status === "unknown" ? " — what a proof would need" : ""}`);
+      else if (out.horizon !== null && out.how !== "lower-bound" && out.how !== "state-space") lines.push("", `horizon: ${out.horizon} steps${out.horizonWinner ? ` (by the ${out.horizonWinner} method)` : ""}${out.status === "feasible" || out.status === "unknown" ? " — what a proof would need" : ""}`);
       for (const n of out.notes) lines.push(`note: ${n}`);
       if (certificate) lines.push(`certificate written to ${certificate} (check it with: ${invocationName()} audit ${certificate})`);
       lines.push("", CAUTION);
