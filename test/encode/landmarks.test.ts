@@ -8,7 +8,7 @@ import type { Task } from "../../src/ground/task.js";
 import { Solver } from "../../src/sat/index.js";
 import { landmarkCutAtInit, relaxedReachableWithout } from "../../src/search/index.js";
 import { cheapestWithin } from "../support/reference.js";
-import { nonTrivial, richTaskArb, runs } from "./rich-task.js";
+import { nonTrivial, oneStepTask, richTaskArb, runs } from "./rich-task.js";
 
 function leastBound(enc: Encoding): number {
   const solver = new Solver();
@@ -48,16 +48,7 @@ describe("landmarks-1", () => {
   });
 
   it("refuses malformed landmark lists", () => {
-    const task: Task = {
-      domainName: "d",
-      problemName: "p",
-      facts: ["(a)", "(b)"],
-      init: [0],
-      goal: [1],
-      goalNeg: [],
-      actions: [{ name: "(go)", schema: "go", args: [], pre: [0], preNeg: [], add: [1], del: [0], cond: [], cost: 1 }],
-      costModel: "action-costs",
-    };
+    const task = oneStepTask();
     const base = { encoding: "seq-1" as const, steps: 1, parts: ["landmarks-1" as const] };
     expect(() => encodePlanning(task, { ...base, partParams: { "landmarks-1": { landmarks: [[]] } } })).toThrow(/non-empty/);
     expect(() => encodePlanning(task, { ...base, partParams: { "landmarks-1": { landmarks: [[1]] } } })).toThrow(/outside 0\.\.0/);

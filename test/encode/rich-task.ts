@@ -131,3 +131,17 @@ export function movesTaskArb(maxCost = 5): fc.Arbitrary<{ task: Task; groups: nu
       return withCosts(fc.constant(taskFromSpec(spec)), maxCost).map((task) => ({ task, groups }));
     });
 }
+
+/** The smallest task with a plan: (a) holds, (go) turns it into the goal (b) at cost 1. */
+export function oneStepTask(): Task {
+  return {
+    domainName: "d",
+    problemName: "p",
+    facts: ["(a)", "(b)"],
+    init: [0],
+    goal: [1],
+    goalNeg: [],
+    actions: [{ name: "(go)", schema: "go", args: [], pre: [0], preNeg: [], add: [1], del: [0], cond: [], cost: 1 }],
+    costModel: "action-costs",
+  };
+}

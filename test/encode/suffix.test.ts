@@ -8,7 +8,7 @@ import type { Task } from "../../src/ground/task.js";
 import { Solver } from "../../src/sat/index.js";
 import { initialState, optimalCost, reachableStates, replayGround } from "../support/reference.js";
 import { Oracle } from "./oracle.js";
-import { nonTrivial, richTaskArb, runs } from "./rich-task.js";
+import { nonTrivial, oneStepTask, richTaskArb, runs } from "./rich-task.js";
 
 /** Does the digraph (n vertices, edges) have a cycle? Plain DFS colouring. */
 function hasCycle(n: number, edges: readonly [number, number][]): boolean {
@@ -232,16 +232,7 @@ describe("relaxed-suffix-1 against brute force", () => {
   });
 
   it("rejects pairs outside 0 ≤ t < t' ≤ T, repeated pairs, and parameters for parts not in the formula", () => {
-    const task: Task = {
-      domainName: "d",
-      problemName: "p",
-      facts: ["(a)", "(b)"],
-      init: [0],
-      goal: [1],
-      goalNeg: [],
-      actions: [{ name: "(go)", schema: "go", args: [], pre: [0], preNeg: [], add: [1], del: [0], cond: [], cost: 1 }],
-      costModel: "action-costs",
-    };
+    const task = oneStepTask();
     const base = { encoding: "seq-1" as const, steps: 2, parts: ["relaxed-suffix-1" as const] };
     expect(() => encodePlanning(task, { ...base, partParams: { "relaxed-suffix-1": { pairs: [[1, 1]] } } })).toThrow(/not 0 ≤ t < t' ≤ 2/);
     expect(() => encodePlanning(task, { ...base, partParams: { "relaxed-suffix-1": { pairs: [[0, 3]] } } })).toThrow(/not 0 ≤ t < t' ≤ 2/);
