@@ -2,6 +2,7 @@
 // re-grounds, replays the plan, recomputes the horizon and the CNF, and checks the proof.
 import * as fs from "node:fs";
 import * as path from "node:path";
+import { gunzipSync } from "node:zlib";
 import { checkParts, COST_ENCODINGS, provesAtAnyHorizon, STEP_ENCODINGS, type CostEncodingId, type PartId, type PartParams, type StepEncodingId } from "../encode/index.js";
 import { ground, type Task } from "../ground/index.js";
 import { horizonReportJson } from "../horizon/index.js";
@@ -16,6 +17,7 @@ import { AUDITABLE_FORMAT_VERSIONS, COST_SETTING_KEY, costSettingWords, FILES, F
 import { checkInformational, type Recomputed } from "./informational.js";
 import { inTodaysWords } from "./older-names.js";
 import { exactSearchOnce, REDERIVE_WORK, rederive } from "./rederive.js";
+import { checkSearchRecord } from "./search-check.js";
 import { sha256 } from "./write.js";
 
 export interface AuditCheck {
@@ -123,9 +125,9 @@ export function readCertificateJson(dir: string): CertificateJson {
   return inTodaysWords(v as unknown as CertificateJson);
 }
 
-const CLAIMS: Record<string, string[]> = { optimal: ["horizon-unsat", "suffix-unsat", "lower-bound", "state-space"], unsolvable: ["horizon-unsat", "relaxed-unreachable"] };
-/** Claims a format version can hold (suffix-unsat and state-space came with version 2). */
-const CLAIMS_SINCE: Record<string, number> = { "suffix-unsat": 2, "state-space": 2 };
+const CLAIMS: Record<string, string[]> = { optimal: ["horizon-unsat", "suffix-unsat", "lower-bound", "state-space", "landmark-search"], unsolvable: ["horizon-unsat", "relaxed-unreachable"] };
+/** Claims a format version can hold (suffix-unsat, state-space and landmark-search came with version 2). */
+const CLAIMS_SINCE: Record<string, number> = { "suffix-unsat": 2, "state-space": 2, "landmark-search": 2 };
 
 /** A limit stops a check by throwing; checks that catch errors must let it through. */
 function passLimit(e: unknown): void {
@@ -228,6 +230,8 @@ function auditWith(c: Checks, t0: number, dir: string, opts: AuditOptions): Audi
     auditLowerBound(c, dir, cert, task);
   } else if (how === "suffix-unsat") {
     auditSuffixUnsat(c, dir, cert, task, opts, seen);
+  } else if (how === "landmark-search") {
+    auditSearch(c, dir, cert, task);
   } else if (how === "state-space") {
     const ex = exactSearchOnce(task);
     const cost = cert.plan!.cost;
@@ -289,15 +293,33 @@ function auditPlan(c: Checks, dir: string, cert: CertificateJson, model: Model, 
   );
 }
 
-function auditLowerBound(c: Checks, dir: string, cert: CertificateJson, task: Task): void {
-  const lb = cert.lowerBound;
-  const bytes = readIn(dir, FILES.landmarks);
-  if (!isObj(lb) || !bytes) {
-    c.fail("landmark-check", `missing ${!bytes ? FILES.landmarks : "the lowerBound record"}`);
-    return;
+/** The planning pipeline of the re-grounded task (its analysis), or null with check `check` failed. */
+function pipelineOr(c: Checks, task: Task, check: string): PlanningPipeline | null {
+  try {
+    return planningPipeline(task);
+  } catch (e) {
+    passLimit(e);
+    c.fail(check, `analysis failed: ${(e as Error).message}`);
+    return null;
+  }
+}
+
+/** A file the certificate records with its SHA-256: read, hash compared (check `hashCheck`); null when missing (check `failCheck` fails). */
+function recordedFile(c: Checks, dir: string, rec: unknown, file: string, what: string, hashCheck: string, failCheck: string): Buffer | null {
+  const bytes = readIn(dir, file);
+  if (!isObj(rec) || !bytes) {
+    c.fail(failCheck, `missing ${!bytes ? file : what}`);
+    return null;
   }
   const h = sha256(bytes);
-  c.check("landmarks-hash", h === lb.sha256, `${FILES.landmarks} matches its recorded SHA-256`, `${FILES.landmarks} has SHA-256 ${h}, the certificate records ${lb.sha256}`);
+  c.check(hashCheck, h === rec.sha256, `${file} matches its recorded SHA-256`, `${file} has SHA-256 ${h}, the certificate records ${String(rec.sha256)}`);
+  return bytes;
+}
+
+function auditLowerBound(c: Checks, dir: string, cert: CertificateJson, task: Task): void {
+  const lb = cert.lowerBound;
+  const bytes = recordedFile(c, dir, lb, FILES.landmarks, "the lowerBound record", "landmarks-hash", "landmark-check");
+  if (!bytes || !isObj(lb)) return;
   let rec: LandmarkRecord;
   try {
     rec = JSON.parse(bytes.toString("utf8")) as LandmarkRecord;
@@ -373,14 +395,8 @@ function auditHorizonUnsat(c: Checks, dir: string, cert: CertificateJson, task: 
     c.skip("horizon-derivation", "no valid upper cost");
     return;
   }
-  let pipe: PlanningPipeline;
-  try {
-    pipe = planningPipeline(task);
-  } catch (e) {
-    passLimit(e);
-    c.fail("horizon-derivation", `analysis failed: ${(e as Error).message}`);
-    return;
-  }
+  const pipe = pipelineOr(c, task, "horizon-derivation");
+  if (!pipe) return;
   const limits = horizonLimitsOf(cert);
   if (typeof limits === "string") {
     c.fail("horizon-derivation", limits);
@@ -553,13 +569,31 @@ function auditSuffixUnsat(c: Checks, dir: string, cert: CertificateJson, task: T
     )
   )
     return;
-  let pipe: PlanningPipeline;
+  const pipe = pipelineOr(c, task, "encoding");
+  if (!pipe) return;
+  auditFormula(c, dir, cert, pipe, { steps: stepsRaw as number, upper: Infinity, settingFrom: "recorded", bound: cost - 1 }, opts, seen);
+}
+
+/** landmark-search: the recorded A* search over the analysed task, checked state by state (search-check.ts). */
+function auditSearch(c: Checks, dir: string, cert: CertificateJson, task: Task): void {
+  const bytes = recordedFile(c, dir, cert.search, FILES.search, "the search record", "search-hash", "search-check");
+  if (!bytes) return;
+  let entries: unknown;
   try {
-    pipe = planningPipeline(task);
+    entries = JSON.parse(gunzipSync(bytes).toString("utf8"));
   } catch (e) {
     passLimit(e);
-    c.fail("encoding", `analysis failed: ${(e as Error).message}`);
+    c.fail("search-check", `${FILES.search} is not a gzip-compressed JSON record: ${(e as Error).message}`);
     return;
   }
-  auditFormula(c, dir, cert, pipe, { steps: stepsRaw as number, upper: Infinity, settingFrom: "recorded", bound: cost - 1 }, opts, seen);
+  const pipe = pipelineOr(c, task, "search-check");
+  if (!pipe) return;
+  const cost = cert.plan!.cost;
+  const r = checkSearchRecord(pipe.prepared.task, cost, entries);
+  c.check(
+    "search-check",
+    r.valid,
+    `the recorded search (${r.states} states, ${r.expanded} expanded) shows no plan costs less than ${cost}: every expanded state's successors are recorded, every other state's landmarks (re-checked by relaxed reachability) bound what is left`,
+    `the recorded search does not prove the claim: ${r.reason}`,
+  );
 }

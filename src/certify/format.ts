@@ -3,7 +3,8 @@
 
 /**
  * The version this code writes. 2: claims "suffix-unsat" (relaxed-suffix-1 formulas) and
- * "state-space" (the exhaustive route, `stateSpace`),
+ * "state-space" (the exhaustive route, `stateSpace`), "landmark-search" (a recorded A* search
+ * with landmark bounds, `search`),
  * `encoding.partParams`, `thresholdAvoided`, `horizonLimits`.
  */
 export const FORMAT_VERSION = 2;
@@ -22,6 +23,7 @@ export const FILES = {
   plan: "plan.txt",
   proof: "proof.drat.gz",
   landmarks: "landmarks.json",
+  search: "search.json.gz",
 } as const;
 
 export const CAUTION = "A proof of optimality is about the model as written: a plan is only as good as the model. Review the model before acting on a schedule.";
@@ -52,7 +54,12 @@ export interface CertificateJson {
   toolVersion: string;
   created: string;
   inputs: { domain: FileRecord & { name: string }; problem: FileRecord & { name: string } };
-  claim: { status: "optimal" | "unsolvable"; how: "horizon-unsat" | "suffix-unsat" | "lower-bound" | "relaxed-unreachable" | "state-space" };
+  claim: { status: "optimal" | "unsolvable"; how: "horizon-unsat" | "suffix-unsat" | "lower-bound" | "relaxed-unreachable" | "state-space" | "landmark-search" };
+  /**
+   * landmark-search only (format 2 on): the recorded A* search (search.json.gz: a JSON array of
+   * states over the analysed task's facts, each with its cost, expanded or not, and landmarks).
+   */
+  search?: (FileRecord & { bound: number; states: number; expanded: number; task: string }) | null;
   /**
    * state-space only (format 2 on): the exhaustive search of every reachable state of the ground
    * task that the audit repeats (informational figures; the audit re-derives the optimum itself).

@@ -4,7 +4,7 @@ import { createHash } from "node:crypto";
 import * as fs from "node:fs";
 import * as path from "node:path";
 import { pipeline } from "node:stream/promises";
-import { createGzip } from "node:zlib";
+import { createGzip, gzipSync } from "node:zlib";
 import { horizonReportJson } from "../horizon/index.js";
 import { canonicalCnfSha256, costSetting, formulaId, planFile, type CertificateMaterial } from "../optimize/index.js";
 import { PlumblineError } from "../util/errors.js";
@@ -73,6 +73,7 @@ export async function writeCertificate(dir: string, m: CertificateMaterial): Pro
     caution: CAUTION,
   };
   let landmarksText: string | null = null;
+  let searchBytes: Buffer | null = null;
   if (claim.how === "horizon-unsat" || claim.how === "suffix-unsat") {
     const f = m.formula!;
     const setting = costSetting(f.spec);
@@ -95,6 +96,11 @@ export async function writeCertificate(dir: string, m: CertificateMaterial): Pro
   } else if (claim.how === "state-space") {
     if (!m.stateSpace) throw new Error("certify: a state-space certificate needs the search's figures");
     json.stateSpace = { states: m.stateSpace.states, cost: m.stateSpace.cost, method: "Dijkstra over every reachable state of the ground task" };
+  } else if (claim.how === "landmark-search") {
+    const rec = m.searchRecord;
+    if (!rec) throw new Error("certify: a landmark-search certificate needs the search record");
+    searchBytes = gzipSync(JSON.stringify(rec.entries));
+    json.search = { file: FILES.search, sha256: sha256(searchBytes), bound: rec.bound, states: rec.entries.length, expanded: rec.entries.filter((e) => e.expanded).length, task: "the analysed task (goal relevance, h² and simplification of the ground task), as the audit rebuilds it" };
   } else if (claim.how === "lower-bound") {
     const rec = m.landmarks ?? { bound: 0, landmarks: [] };
     landmarksText = JSON.stringify(rec, null, 1) + "\n";
@@ -106,6 +112,7 @@ export async function writeCertificate(dir: string, m: CertificateMaterial): Pro
     fs.writeFileSync(path.join(tmp, FILES.problem), model.problemText);
     if (planText !== null) fs.writeFileSync(path.join(tmp, FILES.plan), planText);
     if (landmarksText !== null) fs.writeFileSync(path.join(tmp, FILES.landmarks), landmarksText);
+    if (searchBytes !== null) fs.writeFileSync(path.join(tmp, FILES.search), searchBytes);
     if (m.proof) {
       const target = path.join(tmp, FILES.proof);
       try {

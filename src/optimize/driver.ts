@@ -109,7 +109,7 @@ async function findFirstPlan(run: Run, exhausted: boolean): Promise<OptimizeOutc
   const Hinf = rep.horizon;
   let T = 4;
   for (;;) {
-    const stop = run.budget.stop();
+    const stop = run.budget.stop() ?? (run.certifiedWindowOver() ? "certified" : null);
     if (stop) return finish(run, "unknown", null, stop);
     const last = !(T < Hinf);
     const steps = last ? Hinf : T;
@@ -167,7 +167,7 @@ export async function thresholdRoute(run: Run, known?: HorizonReport): Promise<O
     const best = run.best!;
     const lb = byLandmarks(run);
     if (lb) return lb;
-    const stop = run.budget.stop();
+    const stop = run.budget.stop() ?? (run.certifiedWindowOver() ? "certified" : null);
     if (stop) return finish(run, "feasible", null, stop);
     const rep = rep0 !== null && rep0.upperCost === best.cost ? rep0 : run.horizonFor(best.cost);
     rep0 = null;
@@ -191,6 +191,7 @@ export async function thresholdRoute(run: Run, known?: HorizonReport): Promise<O
     for (;;) {
       const C = run.best!.cost;
       const q = await run.ask(s, C - 1);
+      if (q.interrupted && run.certifiedWindowOver()) return finish(run, "feasible", null, "certified", { horizon: rep });
       if (q.interrupted) break; // a better plan arrived from the helper: ask again with its cost
       if (q.status === "unknown") return finish(run, "feasible", null, run.budget.stop() ?? "time", { horizon: rep });
       if (q.status === "unsat") {
@@ -246,10 +247,13 @@ async function anytime(run: Run, rep: HorizonReport): Promise<OptimizeOutcome> {
     run.pollHelper();
     const lb = byLandmarks(run);
     if (lb) return lb;
-    const stop = run.budget.stop();
+    const stop = run.budget.stop() ?? (run.certifiedWindowOver() ? "certified" : null);
     if (stop) return finish(run, "feasible", null, stop, { horizon: rep });
     const spec = run.spec(T, run.best!.cost);
-    if (!run.fits(spec).ok) return finish(run, "feasible", null, "horizon-too-large", { horizon: rep });
+    if (!run.fits(spec).ok) {
+      await run.awaitHelper();
+      return finish(run, "feasible", null, run.budget.stop() ?? "horizon-too-large", { horizon: rep });
+    }
     const s = run.open(spec, false);
     run.progress.state.phase = "improving (no proof possible)";
     for (;;) {

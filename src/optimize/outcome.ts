@@ -33,6 +33,16 @@ export function finish(run: Run, status: OptimizeOutcome["status"], how: ProofHo
     how = "state-space";
     stopReason = null;
     extra = { ...extra, provedBy: `exhaustive search of all ${run.stateSpace.states} reachable states (re-derived by the audit's own plain search; no SAT proof)` };
+  } else if (status === "feasible" && run.best !== null && run.searchRecord?.bound === run.best.cost) {
+    const rec = run.searchRecord;
+    const expanded = rec.entries.filter((e) => e.expanded).length;
+    run.notes.push(`the SAT refutation did not finish (${stopReason ?? "no proof"}); optimality rests on a recorded A* search with landmark-cut bounds (${rec.entries.length} states, ${expanded} expanded), which the audit checks state by state`);
+    run.lower = run.best.cost;
+    run.event("proof", `recorded A* search with landmark bounds: ${rec.entries.length} states`);
+    status = "optimal";
+    how = "landmark-search";
+    stopReason = null;
+    extra = { ...extra, provedBy: `A* search with landmark-cut bounds, recorded (${rec.entries.length} states) and checked state by state by the audit; no SAT proof` };
   }
   else if (status === "feasible" && run.incumbentOptimal)
     run.notes.push(`A* with landmark-cut searched exhaustively: no plan is cheaper than ${run.best!.cost}; that search leaves no certificate, so the status stays feasible`);
@@ -81,6 +91,7 @@ export function finish(run: Run, status: OptimizeOutcome["status"], how: ProofHo
       proof: extra.proof ?? null,
       landmarks: how === "lower-bound" ? run.landmarks : null,
       stateSpace: how === "state-space" ? run.stateSpace : null,
+      searchRecord: how === "landmark-search" ? run.searchRecord : null,
       timeline: run.timeline,
       horizonLimits: run.opts.horizonLimits && Object.keys(run.opts.horizonLimits).length > 0 ? { ...run.opts.horizonLimits } : null,
     };

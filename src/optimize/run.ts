@@ -4,7 +4,7 @@ import { extractPlan, PARTS, type PartId, type PartParams } from "../encode/inde
 import type { GroundOptions, Task } from "../ground/index.js";
 import type { HorizonReport } from "../horizon/index.js";
 import type { Model } from "../pddl/index.js";
-import { landmarkCutAtInit, relaxedReachableWithout, type LandmarkRecord } from "../search/index.js";
+import { landmarkCutAtInit, relaxedReachableWithout, type LandmarkRecord, type SearchRecord } from "../search/index.js";
 import { PlumblineError } from "../util/errors.js";
 import { Budget } from "./budget.js";
 import { resolveEncoding, type EncodingChoice } from "./encoding-choice.js";
@@ -107,10 +107,50 @@ export class Run {
 
   /** True while a helper result waits to be taken (a query should give way). */
   helperHasNews(): boolean {
-    return this.helper?.pending === true;
+    return this.helper?.pending === true || this.certifiedWindowOver();
+  }
+
+  /** When a certificate without SAT became possible (search record or state-space), seconds. */
+  private certifiableSince: number | null = null;
+
+  /**
+   * A certifiable optimum without SAT (a search record or the plain state-space search) is in
+   * hand, and the SAT refutation has had as long again (at least 10 s) since: stop trying, the
+   * run ends with that certificate instead of spending the whole time limit.
+   */
+  certifiedWindowOver(): boolean {
+    if (this.best === null) return false;
+    const ok = this.stateSpace?.cost === this.best.cost || this.searchRecord?.bound === this.best.cost;
+    if (!ok) return false;
+    const now = this.budget.elapsed();
+    if (this.certifiableSince === null) this.certifiableSince = now;
+    return now >= 2 * this.certifiableSince + 10;
+  }
+
+  /** The helper's search record proving its optimum (landmark-search), when it has sent one. */
+  get searchRecord(): SearchRecord | null {
+    return this.helper?.record ?? this.keptRecord;
+  }
+
+  private keptRecord: SearchRecord | null = null;
+
+  /**
+   * No SAT formula fits: rather than give up, wait (within the limits) for the helper's A* to end,
+   * with its optimal plan and search record.
+   */
+  async awaitHelper(): Promise<void> {
+    const h = this.helper;
+    if (!h) return;
+    this.progress.say("no SAT formula fits: waiting for A* with landmark-cut on the second thread");
+    while (this.budget.stop() === null) {
+      const ended = await Promise.race([h.exited.then(() => true), new Promise<boolean>((r) => setTimeout(() => r(false), 100))]);
+      if (ended) break;
+    }
+    this.pollHelper();
   }
 
   stopHelper(): void {
+    this.keptRecord = this.helper?.record ?? this.keptRecord;
     this.helper?.stop();
     this.helper = null;
   }

@@ -3,6 +3,7 @@
 import { availableParallelism } from "node:os";
 import type { Worker } from "node:worker_threads";
 import type { Task } from "../ground/task.js";
+import type { SearchRecord } from "../search/index.js";
 import { startThread } from "../util/thread.js";
 
 export interface HelperResult {
@@ -15,6 +16,8 @@ export interface HelperResult {
   expanded: number;
   stopReason: string | null;
   seconds: number;
+  /** After an optimal plan: the record of a search proving no plan is cheaper (a second message). */
+  record: SearchRecord | null;
 }
 
 /** Bytes per stored state the helper is allowed, for turning a memory limit into a state cap. */
@@ -24,7 +27,11 @@ export class SearchHelper {
   private readonly worker: Worker;
   private done: HelperResult | null = null;
   private taken = false;
+  /** The search record, when the worker sent one after its result. */
+  record: SearchRecord | null = null;
   readonly finished: Promise<HelperResult>;
+  /** Resolves when the thread has ended (after its result and any search record). */
+  readonly exited: Promise<void>;
 
   constructor(task: Task, opts: { deadline: number; memoryLimitBytes: number; costBound?: number }) {
     const maxStates = Number.isFinite(opts.memoryLimitBytes) ? Math.max(10_000, Math.floor(opts.memoryLimitBytes / 3 / BYTES_PER_STATE)) : 20_000_000;
@@ -34,10 +41,14 @@ export class SearchHelper {
         if (this.done === null) this.done = r;
         resolve(this.done);
       };
-      this.worker.on("message", (m: HelperResult) => settle(m));
-      this.worker.on("error", (e) => settle({ status: "failed", plan: null, cost: null, lowerBound: null, expanded: 0, stopReason: e.message, seconds: 0 }));
-      this.worker.on("exit", () => settle({ status: "failed", plan: null, cost: null, lowerBound: null, expanded: 0, stopReason: "stopped", seconds: 0 }));
+      this.worker.on("message", (m: HelperResult) => {
+        if (m.record) this.record = m.record;
+        else settle(m);
+      });
+      this.worker.on("error", (e) => settle({ status: "failed", plan: null, cost: null, lowerBound: null, expanded: 0, stopReason: e.message, seconds: 0, record: null }));
+      this.worker.on("exit", () => settle({ status: "failed", plan: null, cost: null, lowerBound: null, expanded: 0, stopReason: "stopped", seconds: 0, record: null }));
     });
+    this.exited = new Promise((resolve) => this.worker.once("exit", () => resolve()));
     this.worker.unref();
   }
 

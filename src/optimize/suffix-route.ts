@@ -36,7 +36,7 @@ export async function suffixRoute(run: Run, thresholdRoute: (run: Run, known?: H
     run.pollHelper();
     const lb = byLandmarks(run);
     if (lb) return lb;
-    const stop = run.budget.stop();
+    const stop = run.budget.stop() ?? (run.certifiedWindowOver() ? "certified" : null);
     if (stop) return finish(run, "feasible", null, stop, rep ? { horizon: rep } : {});
     const C = run.best!.cost;
     if (rep === null || rep.upperCost !== C) rep = run.horizonFor(C);
@@ -48,14 +48,15 @@ export async function suffixRoute(run: Run, thresholdRoute: (run: Run, known?: H
     const fit = run.fits(spec);
     if (!fit.ok) {
       run.notes.push(`the relaxed-suffix formula no longer fits: ${fit.why}`);
-      return finish(run, "feasible", null, "horizon-too-large", { horizon: rep });
+      await run.awaitHelper();
+      return finish(run, "feasible", null, run.budget.stop() ?? "horizon-too-large", { horizon: rep });
     }
     const s = run.open(spec, true);
     run.progress.state.phase = `relaxed suffix after ${h} steps`;
     const r = await atHorizon(run, s, h, pairs, rep);
     run.close();
     if (r.kind === "done") return r.outcome;
-    if (r.kind === "stop") return finish(run, "feasible", null, run.budget.stop() ?? "time", { horizon: rep });
+    if (r.kind === "stop") return finish(run, "feasible", null, run.budget.stop() ?? (run.certifiedWindowOver() ? "certified" : "time"), { horizon: rep });
     h = nextSuffixHorizon(h);
   }
 }
@@ -85,7 +86,10 @@ async function atHorizon(run: Run, s: SatSession, h: number, pairs: [number, num
     if (bound < run.lower) return { kind: "grow" };
     const proving = bound === C - 1;
     const q = await run.ask(s, bound, proving ? undefined : DESCENT_CONFLICTS);
-    if (q.interrupted) continue; // the helper's result arrived: ask again with it
+    if (q.interrupted) {
+      if (run.certifiedWindowOver()) return { kind: "stop" };
+      continue; // the helper's result arrived: ask again with it
+    }
     if (q.status === "unknown") return proving || run.budget.stop() ? { kind: "stop" } : { kind: "grow" };
     if (q.status === "unsat") {
       if (!proving) {

@@ -4,14 +4,14 @@ import type { PreparedTask } from "../analyse/index.js";
 import type { GroundOptions, Task } from "../ground/index.js";
 import type { HorizonReport } from "../horizon/index.js";
 import type { Model } from "../pddl/index.js";
-import type { LandmarkRecord } from "../search/index.js";
+import type { LandmarkRecord, SearchRecord } from "../search/index.js";
 import type { StopReason } from "./budget.js";
 import type { Formula } from "./formula.js";
 import type { CheckedPlan } from "./plan-check.js";
 import type { ProofChecker, ProofFile } from "./sat-session.js";
 
 export type OutcomeStatus = "optimal" | "feasible" | "unsolvable" | "unknown";
-export type ProofHow = "horizon-unsat" | "suffix-unsat" | "lower-bound" | "relaxed-unreachable" | "state-space";
+export type ProofHow = "horizon-unsat" | "suffix-unsat" | "lower-bound" | "relaxed-unreachable" | "state-space" | "landmark-search";
 
 export interface OptimizeOptions {
   /**
@@ -115,6 +115,8 @@ export interface CertificateMaterial {
   landmarks: LandmarkRecord | null;
   /** state-space: the optimum and reachable states the plain search found. */
   stateSpace: { cost: number; states: number } | null;
+  /** landmark-search: the record of an A* search (on the analysed task) proving no plan is cheaper. */
+  searchRecord: SearchRecord | null;
   timeline: TimelineEvent[];
   /** The horizon methods' limits when not the defaults (recorded so the audit uses the same). */
   horizonLimits: OptimizeOptions["horizonLimits"] | null;
@@ -123,7 +125,7 @@ export interface CertificateMaterial {
 export interface OptimizeOutcome {
   status: OutcomeStatus;
   /** Why the run stopped early (limits), or why no proof was attempted. */
-  stopReason: StopReason | "horizon-too-large" | "no-proof" | null;
+  stopReason: StopReason | "horizon-too-large" | "no-proof" | "certified" | null;
   cost: number | null;
   /** Proven lower bound (Infinity when unsolvable). */
   lowerBound: number;

@@ -71,6 +71,8 @@ function derivationSection(cert: Record<string, unknown>): string {
       const claim = isObj(cert.claim) ? cert.claim : {};
       if (claim.how === "state-space" && isObj(cert.stateSpace))
         return `<p><strong>Proved by exhaustive search</strong> of all ${esc(show(cert.stateSpace.states))} reachable states (no SAT proof): no plan is cheaper. audit repeats that search itself.</p>`;
+      if (claim.how === "landmark-search" && isObj(cert.search))
+        return `<p><strong>Proved by a recorded A* search with landmark bounds</strong> (${esc(show(cert.search.states))} states, ${esc(show(cert.search.expanded))} expanded; no SAT proof): every state the search did not expand carries landmarks showing that no plan through it is cheaper. audit checks every state of the record.</p>`;
       return `<p class="note">The certificate records no horizon derivation (a lower-bound or unsolvability claim needs none).</p>`;
     }
     return htmlTable(["quantity", "value"], flatten(d).map(([k, v]) => [`<code>${esc(k)}</code>`, `<span class="mono">${esc(v)}</span>`]), { left: [1] });

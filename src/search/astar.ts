@@ -40,11 +40,14 @@ export function astarWith(ct: CompiledTask, tree: SuccessorTree, heur: StateHeur
   let lowerBound = 0;
   let minPrunedF = Infinity;
 
-  const done = (status: SearchResult["status"], goalId: number, stopReason?: StopReason): SearchResult => ({
-    ...space.result(status, goalId, { expanded, generated, t0, heuristic: heur.name, extraBytes: open.bytes }, stopReason),
-    lowerBound: goalId >= 0 ? space.g.a[goalId] : status === "unsolvable" ? Infinity : stopReason === "cost-bound" ? minPrunedF : lowerBound,
-    reopened,
-  });
+  const done = (status: SearchResult["status"], goalId: number, stopReason?: StopReason): SearchResult => {
+    opts.keepSpace?.(space);
+    return {
+      ...space.result(status, goalId, { expanded, generated, t0, heuristic: heur.name, extraBytes: open.bytes }, stopReason),
+      lowerBound: goalId >= 0 ? space.g.a[goalId] : status === "unsolvable" ? Infinity : stopReason === "cost-bound" ? minPrunedF : lowerBound,
+      reopened,
+    };
+  };
 
   buf.set(ct.init);
   const root = space.intern(buf);

@@ -53,6 +53,8 @@ export interface AstarOptions extends SearchOptions {
    * stopReason "cost-bound" and a lowerBound above costBound.
    */
   costBound?: number;
+  /** Called once with the search space when the search ends (for records of the whole search). */
+  keepSpace?: (space: import("./search-space.js").SearchSpace) => void;
 }
 
 export interface GbfsOptions extends SearchOptions {

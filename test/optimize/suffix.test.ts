@@ -4,6 +4,7 @@
 import * as fs from "node:fs";
 import { tmpdir } from "node:os";
 import * as path from "node:path";
+import { availableParallelism } from "node:os";
 import fc from "fast-check";
 import { afterAll, describe, expect, it } from "vitest";
 import { generateProblem, scenarios } from "../../benchmarks/domains/index.js";
@@ -192,5 +193,37 @@ describe("landmark clauses in proofs (landmarks-1)", () => {
     j.encoding.partParams["landmarks-1"].landmarks = [...lms.slice(0, -1), [spare]];
     fs.writeFileSync(file, JSON.stringify(j));
     expect(failed(copy)).toEqual(expect.arrayContaining(["landmarks-part"]));
+  }, 300_000);
+});
+
+describe("the recorded search route (landmark-search)", () => {
+  it.skipIf(availableParallelism() < 2)("when no SAT formula fits, the helper's A* optimum with its search record is claimed as landmark-search and audits", async () => {
+    let claims = 0;
+    await fc.assert(
+      fc.asyncProperty(fc.constantFrom(...scenarios), fc.integer({ min: 1, max: 500 }), async (sc, seed) => {
+        const domain = fs.readFileSync(path.join(root, "benchmarks/domains", sc.name, "domain.pddl"), "utf8");
+        const { out, reference } = await solveText(domain, generateProblem(sc, "tiny", seed), { maxClauses: 1, timeLimit: 60 });
+        expect(out.cost).toBe(reference);
+        if (out.how === "landmark-search") {
+          claims++;
+          const dir = await certify(out);
+          expect(failed(dir)).toEqual([]);
+          // the record edited: one state fewer (its hash updated) is rejected by the check itself
+          const { gunzipSync, gzipSync } = await import("node:zlib");
+          const { createHash } = await import("node:crypto");
+          const file = path.join(dir, "search.json.gz");
+          const entries = JSON.parse(gunzipSync(fs.readFileSync(file)).toString("utf8")) as unknown[];
+          const bytes = gzipSync(JSON.stringify(entries.slice(0, -1)));
+          fs.writeFileSync(file, bytes);
+          const cj = path.join(dir, "certificate.json");
+          const j = JSON.parse(fs.readFileSync(cj, "utf8"));
+          j.search.sha256 = createHash("sha256").update(bytes).digest("hex");
+          fs.writeFileSync(cj, JSON.stringify(j));
+          expect(failed(dir)).toEqual(expect.arrayContaining(["search-check"]));
+        } else disposeOutcome(out);
+      }),
+      { numRuns: 24, seed: 8 },
+    );
+    expect(claims).toBeGreaterThan(3);
   }, 300_000);
 });
