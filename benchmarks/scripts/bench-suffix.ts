@@ -85,7 +85,9 @@ async function one(inst: FoundInstance): Promise<Row | null> {
     let audit: Row["audit"] = { valid: null, seconds: null };
     if (sj.certificate) {
       const a = await run(["audit", cert, "--json"], 600);
-      audit = { valid: a.json?.valid ?? false, seconds: a.seconds };
+      // audit --json prints one entry per certificate (an array)
+      const entry = (Array.isArray(a.json) ? a.json[0] : a.json) as Json | undefined;
+      audit = { valid: entry?.valid === true, seconds: a.seconds };
     }
     const a = await run(["search", inst.domainFile, inst.problemFile, "--json", "--heuristic", "landmark-cut", "--time-limit", String(timeLimit)], timeLimit);
     const aj = a.json ?? {};

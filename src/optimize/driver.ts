@@ -109,7 +109,10 @@ async function findFirstPlan(run: Run, exhausted: boolean): Promise<OptimizeOutc
   const Hinf = rep.horizon;
   let T = 4;
   for (;;) {
-    const stop = run.budget.stop() ?? (run.certifiedWindowOver() ? "certified" : null);
+    // a plan from the exact explicit search (horizonFor) or the A* helper ends this phase
+    run.pollHelper();
+    if (run.best !== null) return null;
+    const stop = run.budget.stop();
     if (stop) return finish(run, "unknown", null, stop);
     const last = !(T < Hinf);
     const steps = last ? Hinf : T;
@@ -130,6 +133,7 @@ async function findFirstPlan(run: Run, exhausted: boolean): Promise<OptimizeOutc
     }
     if (q.status === "unknown") {
       run.close();
+      if (q.interrupted) continue;
       return finish(run, "unknown", null, run.budget.stop() ?? "time");
     }
     if (last) {
@@ -146,7 +150,9 @@ async function findFirstPlan(run: Run, exhausted: boolean): Promise<OptimizeOutc
     run.close();
     T = Math.min(T * 2, Number.isFinite(Hinf) ? Hinf : T * 2);
   }
-  // no formula fits: only exhaustive search could have settled it
+  // no formula fits: the helper's A* may still find a plan (and prove it)
+  await run.awaitHelper();
+  if (run.best !== null) return null;
   if (exhausted) {
     // sound, but nothing audit could re-check: `unsolvable` is claimed only with a certificate
     run.notes.push("GBFS exhausted the reachable states without reaching the goal, so no plan exists; that search leaves no certificate, so the status stays unknown");
