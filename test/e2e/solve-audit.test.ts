@@ -23,7 +23,7 @@ describe("plumbline solve + audit", () => {
     expect(r.code).toBe(0);
     const j = r.json();
     // source: benchmarks/domains/harbour/instances.json (Dijkstra over the scenario model)
-    expect(j).toMatchObject({ status: "optimal", cost: 20, lowerBound: 20, how: "horizon-unsat", proof: { kind: "drat" } });
+    expect(j).toMatchObject({ status: "optimal", cost: 20, lowerBound: 20, how: expect.stringMatching(/^(horizon|suffix)-unsat$/), proof: { kind: "drat" } });
     for (const k of ["plan", "horizon", "proof", "seconds", "timeline", "satCalls", "variables", "clauses"]) expect(j).toHaveProperty(k);
     expect(j.plan).toEqual(parsePlan(fs.readFileSync(plan, "utf8"), "plan").map((s) => `(${[s.name, ...s.args].join(" ")})`));
     expect(j.timeline.length).toBeGreaterThan(0);
@@ -32,7 +32,7 @@ describe("plumbline solve + audit", () => {
     const a = await cli(["audit", cert, "--json"]);
     expect(a.code).toBe(0);
     expect(a.json()).toHaveLength(1);
-    expect(a.json()[0]).toMatchObject({ valid: true, verdict: "valid", claim: { status: "optimal", how: "horizon-unsat" }, cost: 20 });
+    expect(a.json()[0]).toMatchObject({ valid: true, verdict: "valid", claim: { status: "optimal", how: j.how }, cost: 20 });
     const human = await cli(["audit", cert]);
     expect(human.stdout).toMatch(/^valid/);
 
@@ -59,7 +59,8 @@ describe("plumbline solve + audit", () => {
     const out = path.join(work, "limit");
     fs.mkdirSync(out);
     const plan = path.join(out, "plan.txt");
-    const r = await cli(["solve", H("domain.pddl"), H("problem-04.pddl"), "--json", "--time-limit", "3", "--plan", plan, "--certificate", path.join(out, "cert")]);
+    // problem-05: no proof of any kind within seconds (a certificate needs about 20 s)
+    const r = await cli(["solve", H("domain.pddl"), H("problem-05.pddl"), "--json", "--time-limit", "3", "--plan", plan, "--certificate", path.join(out, "cert")]);
     expect(r.code).toBe(3);
     const j = r.json();
     expect(j.status).toBe("feasible");
@@ -68,7 +69,7 @@ describe("plumbline solve + audit", () => {
     expect(j.gap).toBe(j.cost - j.lowerBound);
     expect(fs.readdirSync(out)).toEqual(["plan.txt"]);
     expect(parsePlan(fs.readFileSync(plan, "utf8"), "plan")).toHaveLength(j.length);
-    const rep = await cli(["replay", H("domain.pddl"), H("problem-04.pddl"), plan, "--json"]);
+    const rep = await cli(["replay", H("domain.pddl"), H("problem-05.pddl"), plan, "--json"]);
     expect(rep.json()).toMatchObject({ valid: true, cost: j.cost });
   });
 
@@ -77,7 +78,7 @@ describe("plumbline solve + audit", () => {
     fs.mkdirSync(out);
     const ac = new AbortController();
     setTimeout(() => ac.abort(), 1500);
-    const r = await cli(["solve", H("domain.pddl"), H("problem-04.pddl"), "--json", "--plan", path.join(out, "plan.txt")], ac.signal);
+    const r = await cli(["solve", H("domain.pddl"), H("problem-05.pddl"), "--json", "--plan", path.join(out, "plan.txt")], ac.signal);
     expect(r.code).toBe(3);
     expect(r.json()).toMatchObject({ status: "feasible", stopReason: "interrupted" });
     expect(fs.readdirSync(out)).toEqual(["plan.txt"]);
