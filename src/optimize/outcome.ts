@@ -60,7 +60,7 @@ export function finish(run: Run, status: OptimizeOutcome["status"], how: ProofHo
     how,
     provedBy: extra.provedBy ?? null,
     horizon: formula ? formula.spec.steps : horizon ? horizonValue(horizon) : null,
-    horizonWinner: how === "suffix-unsat" ? "relaxed-suffix" : (horizon?.winner ?? null),
+    horizonWinner: how === "suffix-unsat" ? null : (horizon?.winner ?? null),
     thresholdAvoided: how === "suffix-unsat" && horizon ? horizonValue(horizon) : null,
     encoding: lastSpec ? formulaId(lastSpec) : null,
     proof: extra.proof ?? null,
