@@ -25,6 +25,10 @@ export const CHECK_WORDS: Readonly<Record<string, string>> = {
   "second-derivation": "the step limit and the optimum were worked out a second way, by code that shares nothing with the first, and agree",
   informational: "the certificate's other figures (sizes, counts) match what the audit recomputed, or are named as not checked",
   "suffix-terms": "the proof's formula is the kind that covers plans of any length (real steps, then a relaxed suffix)",
+  "state-space": "every state the model can reach was visited again by a plain search: no plan is cheaper than this one",
+  "search-hash": "the search record is the one the certificate was made with",
+  "search-check": "the search record was checked state by state: every way to a cheaper plan was followed or shown to cost too much",
+  "landmarks-part": "the actions the formula says every plan needs were checked again: each is truly needed",
 };
 
 /** The plain sentence for a check, or its name when it has none yet. */
