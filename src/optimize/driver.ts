@@ -9,7 +9,7 @@ import { checkLandmarkCertificate, gbfs, landmarkCutAtInit } from "../search/ind
 import { isLimitReached, withLimits } from "../util/limits.js";
 import { deadlineOf, type StopReason } from "./budget.js";
 import { incumbentIds } from "./incumbent.js";
-import { byLandmarks, finish, proven } from "./outcome.js";
+import { byLandmarks, finish, proven, selfCheck } from "./outcome.js";
 import { InternalError } from "./plan-check.js";
 import { Run } from "./run.js";
 import { stoppedOutcome } from "./stopped.js";
@@ -143,9 +143,11 @@ async function findFirstPlan(run: Run, exhausted: boolean): Promise<OptimizeOutc
         run.notes.push("the reachability query was unsatisfiable, but no checked proof was produced");
         return finish(run, "unknown", null, "no-proof");
       }
+      const checked = selfCheck(run, s.formula, [], proof);
+      if (!checked.ok) return checked.outcome;
       run.lower = Infinity;
       run.event("proof", `no plan within the reachability threshold ${steps}`);
-      return finish(run, "unsolvable", "horizon-unsat", null, { horizon: rep, formula: s.formula, units: [], bound: null, proof, provedBy: "SAT (unsatisfiable at the reachability threshold, DRAT proof)" });
+      return finish(run, "unsolvable", "horizon-unsat", null, { horizon: rep, formula: s.formula, units: [], bound: null, proof, proofCheckSeconds: checked.seconds, provedBy: "SAT (unsatisfiable at the reachability threshold, DRAT proof)" });
     }
     run.close();
     T = Math.min(T * 2, Number.isFinite(Hinf) ? Hinf : T * 2);

@@ -3,7 +3,7 @@
 import * as fs from "node:fs";
 import * as path from "node:path";
 import type { HorizonReport } from "../horizon/index.js";
-import { formulaId, type Formula } from "./formula.js";
+import { checkerCnf, formulaId, type Formula } from "./formula.js";
 import type { Run } from "./run.js";
 import type { ProofFile } from "./sat-session.js";
 import type { OptimizeOutcome, ProofHow } from "./types.js";
@@ -20,6 +20,42 @@ export interface FinishExtra {
   bound?: number | null;
   proof?: ProofFile;
   provedBy?: string;
+  proofCheckSeconds?: number;
+}
+
+export type SelfCheck = { ok: true; seconds: number | undefined } | { ok: false; outcome: OptimizeOutcome };
+
+/**
+ * Before a claim rests on the built-in solver's DRAT proof, the independent checker (passed in
+ * by the CLI as `proofChecker`; this stage may not import it) checks it within the run's limits.
+ * External proofs were checked when they arrived (sat-session.ts). Rejected: no claim, a note
+ * asking for a bug report. Not finished within the limit: no claim either (`feasible`; the plan
+ * stays), since the claim would rest on the solver alone.
+ */
+export function selfCheck(run: Run, formula: Formula, units: number[], proof: ProofFile): SelfCheck {
+  const checker = run.opts.proofChecker;
+  if (proof.engine !== "builtin" || !checker) return { ok: true, seconds: undefined };
+  run.progress.state.phase = "checking the proof";
+  run.progress.say(`checking the solver's proof (${(proof.bytes / 1e6).toFixed(1)} MB) with the independent checker`);
+  const t0 = performance.now();
+  const status = run.best === null ? "unknown" : "feasible";
+  let valid: boolean;
+  try {
+    const bytes = fs.readFileSync(proof.file);
+    valid = checker(checkerCnf(formula, units), bytes, { deadline: run.budget.deadline === Infinity ? undefined : run.budget.deadline, signal: run.budget.signal });
+  } catch {
+    fs.rmSync(proof.file, { force: true });
+    run.notes.push("the refutation finished, but its proof could not be checked within the limits, so no claim is made on it (a longer --time-limit lets the check finish)");
+    return { ok: false, outcome: finish(run, status, null, run.budget.stop() ?? "time") };
+  }
+  const seconds = (performance.now() - t0) / 1000;
+  if (!valid) {
+    fs.rmSync(proof.file, { force: true });
+    run.notes.push("the independent checker rejected the built-in solver's proof, so no claim is made on it; this is a bug in plumbline's solver — please report it with the model files");
+    return { ok: false, outcome: finish(run, status, null, "no-proof") };
+  }
+  run.event("proof-checked", `the solver's proof was checked by the independent checker in ${seconds.toFixed(1)} s`);
+  return { ok: true, seconds };
 }
 
 export function finish(run: Run, status: OptimizeOutcome["status"], how: ProofHow | null, stopReason: OptimizeOutcome["stopReason"], extra: FinishExtra = {}): OptimizeOutcome {
@@ -64,6 +100,7 @@ export function finish(run: Run, status: OptimizeOutcome["status"], how: ProofHo
     thresholdAvoided: how === "suffix-unsat" && horizon ? horizonValue(horizon) : null,
     encoding: lastSpec ? formulaId(lastSpec) : null,
     proof: extra.proof ?? null,
+    proofCheckSeconds: extra.proofCheckSeconds ?? null,
     seconds: run.budget.elapsed(),
     timeToFirstPlan: run.timeToFirstPlan,
     timeToProof: claimable ? run.budget.elapsed() : null,
@@ -108,21 +145,26 @@ export function byLandmarks(run: Run): OptimizeOutcome | null {
 
 /** An unsatisfiable "cost ≤ bound" query with its proof: the best plan is optimal. */
 export function proven(run: Run, rep: HorizonReport | null, formula: Formula, bound: number, proof: ProofFile, how: "horizon-unsat" | "suffix-unsat"): OptimizeOutcome {
+  const units = formula.boundUnits(bound);
+  const checked = selfCheck(run, formula, units, proof);
+  if (!checked.ok) return checked.outcome;
+  const proofCheckSeconds = checked.seconds;
   run.lower = run.best!.cost;
   const h = formula.spec.steps;
   const engine = proof.engine === "builtin" ? "built-in solver" : "external solver";
   if (how === "horizon-unsat") {
     run.event("proof", `no plan of cost ≤ ${bound} within horizon ${h}`);
-    return finish(run, "optimal", how, null, { horizon: rep ?? undefined, formula, units: formula.boundUnits(bound), bound, proof, provedBy: `SAT (${engine}, unsatisfiable at horizon ${h}, DRAT proof)` });
+    return finish(run, "optimal", how, null, { horizon: rep ?? undefined, formula, units, bound, proof, proofCheckSeconds, provedBy: `SAT (${engine}, unsatisfiable at horizon ${h}, DRAT proof)` });
   }
   run.event("proof", `no plan of cost ≤ ${bound} at all: unsatisfiable with ${h} real steps and a relaxed suffix`);
   const avoided = rep ? `; the completeness threshold would have been ${rep.horizonText}` : "";
   return finish(run, "optimal", how, null, {
     horizon: rep ?? undefined,
     formula,
-    units: formula.boundUnits(bound),
+    units,
     bound,
     proof,
+    proofCheckSeconds,
     provedBy: `SAT (${engine}, unsatisfiable with ${h} real steps and a relaxed suffix, DRAT proof${avoided})`,
   });
 }

@@ -17,6 +17,7 @@ export function stoppedOutcome(reason: LimitReason, seconds: number, phase: stri
     thresholdAvoided: null,
     encoding: null,
     proof: null,
+    proofCheckSeconds: null,
     seconds,
     timeToFirstPlan: null,
     timeToProof: null,

@@ -140,6 +140,11 @@ export interface OptimizeOutcome {
   thresholdAvoided: number | string | null;
   encoding: string | null;
   proof: ProofFile | null;
+  /**
+   * The built-in solver's DRAT proof was checked by the independent checker (src/proof, passed in
+   * as `proofChecker`) before the claim was made: its seconds; null when no such check ran.
+   */
+  proofCheckSeconds: number | null;
   seconds: number;
   timeToFirstPlan: number | null;
   timeToProof: number | null;

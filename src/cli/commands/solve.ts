@@ -117,7 +117,7 @@ export function registerSolve(program: Command, ctx: CliContext): void {
         horizonMethod: out.horizonWinner,
         thresholdAvoided: out.thresholdAvoided,
         encoding: out.encoding,
-        proof: out.proof ? { kind: "drat", file: certificate ? `${certificate}/proof.drat.gz` : null, bytes: out.proof.bytes, format: `drat-${out.proof.format}`, engine: out.proof.engine } : out.how === "lower-bound" ? { kind: "landmarks", file: certificate ? `${certificate}/landmarks.json` : null, bytes: null } : null,
+        proof: out.proof ? { kind: "drat", file: certificate ? `${certificate}/proof.drat.gz` : null, bytes: out.proof.bytes, format: `drat-${out.proof.format}`, engine: out.proof.engine, checkedSeconds: out.proofCheckSeconds } : out.how === "lower-bound" ? { kind: "landmarks", file: certificate ? `${certificate}/landmarks.json` : null, bytes: null } : null,
         certificate,
         planFile: opts.plan && out.plan ? opts.plan : null,
         seconds: out.seconds,
@@ -135,6 +135,7 @@ export function registerSolve(program: Command, ctx: CliContext): void {
       if (planText !== null) lines.push("", planText.trimEnd());
       if (out.how === "suffix-unsat") lines.push("", `proved at horizon ${out.horizon} with a relaxed suffix${out.thresholdAvoided !== null ? ` (a completeness threshold would have needed ${out.thresholdAvoided})` : ""}`);
       else if (out.horizon !== null && out.how !== "lower-bound" && out.how !== "state-space") lines.push("", `horizon: ${out.horizon} steps${out.horizonWinner ? ` (by the ${out.horizonWinner} method)` : ""}${out.status === "feasible" || out.status === "unknown" ? " — what a proof would need" : ""}`);
+      if (out.proofCheckSeconds !== null) lines.push(`the solver's proof was checked by plumbline's independent proof checker in ${out.proofCheckSeconds.toFixed(1)} s`);
       for (const n of out.notes) lines.push(`note: ${n}`);
       if (certificate) lines.push(`certificate written to ${certificate} (check it with: ${invocationName()} audit ${certificate})`);
       lines.push("", CAUTION);
