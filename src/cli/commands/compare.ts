@@ -7,7 +7,7 @@ import { satProver } from "../../optimize/index.js";
 import { comparePlan, sideBySide, type CompareResult } from "../../search/index.js";
 import { readText } from "../../util/files.js";
 import { withCommonOptions, type CliContext } from "../context.js";
-import { positiveNumber } from "../options.js";
+import { deadlineFrom } from "../options.js";
 
 const EXIT: Record<CompareResult["verdict"], number> = { optimal: 0, invalid: 1, suboptimal: 1, unknown: 3 };
 
@@ -40,9 +40,8 @@ export function registerCompare(program: Command, ctx: CliContext): void {
       .option("--time-limit <seconds>", "stop after this many seconds (verdict unknown, exit 3)"),
   ).action(async (domain: string, problem: string, planPath: string, opts: { json?: boolean; quiet?: boolean; verbose?: boolean; timeLimit?: string }) => {
     ctx.configure(opts);
-    // the limit bounds the proving (documented: "stop proving"); reading and grounding the model come first
-    const seconds = positiveNumber("--time-limit", opts.timeLimit);
-    const deadline = seconds === undefined ? undefined : Date.now() + seconds * 1000;
+    // the limit is the whole command's: reading and grounding the model spend it too
+    const deadline = deadlineFrom(opts.timeLimit);
     const steps = parsePlan(readText(planPath), planPath);
     const { model, task } = groundFiles(domain, problem);
     const costNote = costModelNote(model);
