@@ -12,7 +12,7 @@ import { isLimitReached, withLimits } from "../util/limits.js";
 import { auditCertificate, readCertificateJson, type AuditReport } from "./audit.js";
 import { entryOf } from "./bulk.js";
 import { FILES, type CertificateJson } from "./format.js";
-import { dratChecker } from "./proof-check.js";
+import { dratChecker, stateSpaceChecker } from "./proof-check.js";
 import { sha256, writeCertificate } from "./write.js";
 
 /** Our words for the outcomes (JSON `verdict`). */
@@ -257,6 +257,7 @@ async function rejudgeWithin(certDir: string, opts: RejudgeOptions): Promise<Rej
     signal: opts.signal,
     onProgress: opts.onProgress,
     proofChecker: dratChecker,
+    stateSpaceCheck: stateSpaceChecker,
   });
   try {
     base.notes.push(...o.notes);
