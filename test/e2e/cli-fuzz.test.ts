@@ -128,7 +128,7 @@ function setUp(target: Target, ms: Mutation[], pick: number): { argv: string[]; 
       fs.cpSync(certDir, cert, { recursive: true });
       const file = { "cert-json": "certificate.json", "cert-plan": "plan.txt", "cert-proof": "proof.drat.gz", "cert-problem": "problem.pddl" }[target];
       fs.writeFileSync(path.join(cert, file), m(`cert:${file}`));
-      return { argv: ["audit", cert, "--time-limit", "5"], inputs: [path.join(cert, file)] };
+      return { argv: ["audit", cert, "--time-limit-per-certificate", "5"], inputs: [path.join(cert, file)] };
     }
   }
 }
