@@ -29,7 +29,7 @@ export interface InformationalResult {
 /** Fields listed as informational only (what they say is not checked by any audit check). */
 export const UNVERIFIED_FIELDS = ["toolVersion", "created", "timeline", "reduction", "proof.uncompressedBytes", "proof.engine"] as const;
 
-/** The cost a plan file states ("; cost: 12" in our header, "; cost = 12 …" in older files), or null when it states none. */
+/** The cost a plan file states (the `; cost: 12` line of our header, or an older plumbline file's cost line), or null when it states none. */
 export function statedCost(planText: string): number | null {
   return readPlanFileHeader(planText).cost;
 }

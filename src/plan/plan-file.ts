@@ -35,8 +35,8 @@ function blankTimestamps(text: string): string {
 }
 
 /**
- * Reads a plan: one `(action object …)` per line, `;` comments (old trailers such as
- * `; cost = 12 (optimal)` included), or lines `0: (action object …) [1]`; `file` is used in error positions.
+ * Reads a plan: one `(action object …)` per line, `;` comments (the header of our layout
+ * and the cost lines of files older plumbline versions wrote included), or lines `0: (action object …) [1]`; `file` is used in error positions.
  */
 export function parsePlan(text: string, file: string): PlanStep[] {
   const { nodes } = readSexprs(blankTimestamps(text), file);
@@ -107,7 +107,7 @@ export function planFileText(steps: ReadonlyArray<{ name: string; args: readonly
   return head.join("\n") + "\n" + (steps.length ? formatPlan(steps) : "");
 }
 
-/** What a plan file's comments state: the header of our layout, or the cost of an older `; cost = N` trailer. */
+/** What a plan file's comments state: the header of our layout, or the cost line of a file an older plumbline wrote. */
 export interface PlanFileHeader {
   cost: number | null;
   actions: number | null;

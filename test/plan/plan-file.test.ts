@@ -48,7 +48,7 @@ describe("plan files", () => {
     expect(parsePlan(planFileText([], { cost: 0, status: "optimal", proof: "lower-bound" }), "p")).toEqual([]);
   });
 
-  it("reads files with the older trailer ('; cost = N (…)') as before", () => {
+  it("reads plan files written by older plumbline versions (a cost line at the end) as before", () => {
     const steps = parsePlan("(drive t1 a b)\n(load c1 t1 b)\n; cost = 5 (action costs)\n", "old.plan");
     expect(steps.map((s) => s.name)).toEqual(["drive", "load"]);
     expect(readPlanFileHeader("(drive t1 a b)\n; cost = 5 (action costs)\n")).toEqual({ cost: 5, actions: null, status: null, proof: null });
