@@ -3,9 +3,9 @@
 import * as fs from "node:fs";
 import * as path from "node:path";
 import type { HorizonReport } from "../horizon/index.js";
-import { checkerCnf, formulaId, type Formula } from "./formula.js";
+import { formulaId, type Formula } from "./formula.js";
 import type { Run } from "./run.js";
-import type { ProofFile } from "./sat-session.js";
+import { checkProofFile, type ProofFile } from "./sat-session.js";
 import type { OptimizeOutcome, ProofHow } from "./types.js";
 
 export function horizonValue(r: HorizonReport): number | string {
@@ -39,17 +39,14 @@ export function selfCheck(run: Run, formula: Formula, units: number[], proof: Pr
   run.progress.say(`checking the solver's proof (${(proof.bytes / 1e6).toFixed(1)} MB) with the independent checker`);
   const t0 = performance.now();
   const status = run.best === null ? "unknown" : "feasible";
-  let valid: boolean;
-  try {
-    const bytes = fs.readFileSync(proof.file);
-    valid = checker(checkerCnf(formula, units), bytes, { deadline: run.budget.deadline === Infinity ? undefined : run.budget.deadline, signal: run.budget.signal });
-  } catch {
+  const checked = checkProofFile(checker, formula, units, proof.file, run.budget);
+  if (checked === "stopped") {
     fs.rmSync(proof.file, { force: true });
     run.notes.push("the refutation finished, but its proof could not be checked within the limits, so no claim is made on it (a longer --time-limit lets the check finish)");
     return { ok: false, outcome: finish(run, status, null, run.budget.stop() ?? "time") };
   }
   const seconds = (performance.now() - t0) / 1000;
-  if (!valid) {
+  if (checked === "invalid") {
     fs.rmSync(proof.file, { force: true });
     run.notes.push("the independent checker rejected the built-in solver's proof, so no claim is made on it; this is a bug in plumbline's solver — please report it with the model files");
     return { ok: false, outcome: finish(run, status, null, "no-proof") };
@@ -58,29 +55,39 @@ export function selfCheck(run: Run, formula: Formula, units: number[], proof: Pr
   return { ok: true, seconds };
 }
 
+/** What people are told when the best plan is certified optimal without SAT (`Run.claimWithoutSat`). */
+function withoutSatWords(run: Run, route: "state-space" | "landmark-search"): { note: string; event: string; provedBy: string } {
+  if (route === "state-space") {
+    const n = run.stateSpace!.states;
+    return {
+      note: `the exhaustive search of all ${n} reachable states, which the audit repeats`,
+      event: `exhaustive search of ${n} reachable states`,
+      provedBy: `exhaustive search of all ${n} reachable states (re-derived by the audit's own plain search; no SAT proof)`,
+    };
+  }
+  const rec = run.searchRecord!;
+  const n = rec.entries.length;
+  return {
+    note: `a recorded A* search with landmark-cut bounds (${n} states, ${rec.entries.filter((e) => e.expanded).length} expanded), which the audit checks state by state`,
+    event: `recorded A* search with landmark bounds: ${n} states`,
+    provedBy: `A* search with landmark-cut bounds, recorded (${n} states) and checked state by state by the audit; no SAT proof`,
+  };
+}
+
 export function finish(run: Run, status: OptimizeOutcome["status"], how: ProofHow | null, stopReason: OptimizeOutcome["stopReason"], extra: FinishExtra = {}): OptimizeOutcome {
   if (stopReason) run.event("stop", stopReason);
-  // no SAT refutation in time, but the optimum was re-derived by the audit's own exhaustive search
-  if (status === "feasible" && run.best !== null && run.stateSpace?.cost === run.best.cost) {
-    run.notes.push(`the SAT refutation did not finish (${stopReason ?? "no proof"}); optimality rests on the exhaustive search of all ${run.stateSpace.states} reachable states, which the audit repeats`);
-    run.lower = run.best.cost;
-    run.event("proof", `exhaustive search of ${run.stateSpace.states} reachable states`);
+  // no SAT refutation in time, but a certificate without SAT is in hand (state-space or landmark-search)
+  const withoutSat = status === "feasible" ? run.claimWithoutSat() : null;
+  if (withoutSat !== null) {
+    const what = withoutSatWords(run, withoutSat);
+    run.notes.push(`the SAT refutation did not finish (${stopReason ?? "no proof"}); optimality rests on ${what.note}`);
+    run.lower = run.best!.cost;
+    run.event("proof", what.event);
     status = "optimal";
-    how = "state-space";
+    how = withoutSat;
     stopReason = null;
-    extra = { ...extra, provedBy: `exhaustive search of all ${run.stateSpace.states} reachable states (re-derived by the audit's own plain search; no SAT proof)` };
-  } else if (status === "feasible" && run.best !== null && run.searchRecord?.bound === run.best.cost) {
-    const rec = run.searchRecord;
-    const expanded = rec.entries.filter((e) => e.expanded).length;
-    run.notes.push(`the SAT refutation did not finish (${stopReason ?? "no proof"}); optimality rests on a recorded A* search with landmark-cut bounds (${rec.entries.length} states, ${expanded} expanded), which the audit checks state by state`);
-    run.lower = run.best.cost;
-    run.event("proof", `recorded A* search with landmark bounds: ${rec.entries.length} states`);
-    status = "optimal";
-    how = "landmark-search";
-    stopReason = null;
-    extra = { ...extra, provedBy: `A* search with landmark-cut bounds, recorded (${rec.entries.length} states) and checked state by state by the audit; no SAT proof` };
-  }
-  else if (status === "feasible" && run.incumbentOptimal)
+    extra = { ...extra, provedBy: what.provedBy };
+  } else if (status === "feasible" && run.incumbentOptimal)
     run.notes.push(`A* with landmark-cut searched exhaustively: no plan is cheaper than ${run.best!.cost}; that search leaves no certificate, so the status stays feasible`);
   const formula = extra.formula ?? null;
   const claimable = (status === "optimal" || status === "unsolvable") && how !== null;

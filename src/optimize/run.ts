@@ -119,12 +119,21 @@ export class Run {
    * run ends with that certificate instead of spending the whole time limit.
    */
   certifiedWindowOver(): boolean {
-    if (this.best === null) return false;
-    const ok = this.stateSpace?.cost === this.best.cost || this.searchRecord?.bound === this.best.cost;
-    if (!ok) return false;
+    if (this.claimWithoutSat() === null) return false;
     const now = this.budget.elapsed();
     if (this.certifiableSince === null) this.certifiableSince = now;
     return now >= 2 * this.certifiableSince + 10;
+  }
+
+  /**
+   * The route by which the best plan can be certified optimal without SAT: the plain state-space
+   * search re-derived its cost, or the helper's search record bounds everything cheaper; else null.
+   */
+  claimWithoutSat(): "state-space" | "landmark-search" | null {
+    if (this.best === null) return null;
+    if (this.stateSpace?.cost === this.best.cost) return "state-space";
+    if (this.searchRecord?.bound === this.best.cost) return "landmark-search";
+    return null;
   }
 
   /** The helper's search record proving its optimum (landmark-search), when it has sent one. */

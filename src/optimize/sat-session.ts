@@ -115,6 +115,19 @@ export function builtinSession(formula: Formula, proofPath: string | null): SatS
 /** Checks a DRAT proof of `cnf` (the optimizer stage may not import the checker; callers pass it). */
 export type ProofChecker = (cnf: { numVars: number; clauses: Int32Array[] }, proof: Uint8Array, limits: { deadline?: number; signal?: AbortSignal }) => boolean;
 
+/**
+ * Checks the DRAT proof in `file` of formula ∧ units with `checker` within the budget's deadline
+ * and abort signal: "valid", "invalid", or "stopped" when a limit ended the check first.
+ */
+export function checkProofFile(checker: ProofChecker, formula: Formula, units: readonly number[], file: string, budget: Budget): "valid" | "invalid" | "stopped" {
+  try {
+    const bytes = fs.readFileSync(file);
+    return checker(checkerCnf(formula, units), bytes, { deadline: budget.deadline === Infinity ? undefined : budget.deadline, signal: budget.signal }) ? "valid" : "invalid";
+  } catch {
+    return "stopped";
+  }
+}
+
 export function externalSession(formula: Formula, command: string, workDir: string, checker: ProofChecker | null): SatSession {
   let calls = 0;
   let proof: ProofFile | null = null;
@@ -156,20 +169,13 @@ export function externalSession(formula: Formula, command: string, workDir: stri
           if (r.proofPath) fs.rmSync(r.proofPath, { force: true });
           return { status: "unsat", proved: false };
         }
+        const checked = checkProofFile(checker, formula, units, r.proofPath, budget);
+        if (checked !== "valid") {
+          fs.rmSync(r.proofPath, { force: true });
+          return checked === "stopped" ? { status: "unknown" } : { status: "unsat", proved: false };
+        }
         const bytes = fs.readFileSync(r.proofPath);
-        let valid: boolean;
-        try {
-          valid = checker(checkerCnf(formula, units), bytes, { deadline: budget.deadline === Infinity ? undefined : budget.deadline, signal: budget.signal });
-        } catch {
-          fs.rmSync(r.proofPath, { force: true });
-          return { status: "unknown" };
-        }
-        if (!valid) {
-          fs.rmSync(r.proofPath, { force: true });
-          return { status: "unsat", proved: false };
-        }
-        const binary = bytes.includes(0);
-        proof = { file: r.proofPath, bytes: bytes.length, format: binary ? "binary" : "text", engine: "external" };
+        proof = { file: r.proofPath, bytes: bytes.length, format: bytes.includes(0) ? "binary" : "text", engine: "external" };
         return { status: "unsat", proved: true };
       }
       fs.rmSync(proofPath, { force: true });
