@@ -59,3 +59,26 @@ export function comparatorAssumptions(c: Comparator, B: number): number[] {
   }
   return out;
 }
+
+/**
+ * cost-prune-1 on cost-adder-1: for each lb ascending a new variable q ("prune-bound") with, for
+ * each bit j of lb that is 1 (j descending), [−q, −enable, b_j, b_k for j < k < m with bit k of
+ * lb 0 (ascending)] — bound bits past m are constant false and left out. q ⇒ (enable ⇒ B ≥ lb): the
+ * clauses say "B ≥ lb" (the top bit where B and lb differ is 1 in B).
+ */
+export function comparatorAtLeast(cnf: CnfBuilder, c: Comparator, lbs: readonly number[]): number[] {
+  const m = c.boundBits.length;
+  return lbs.map((lb) => {
+    const q = cnf.newVar("prune-bound");
+    const bits: number[] = [];
+    for (let x = lb; x > 0; x = Math.floor(x / 2)) bits.push(x % 2);
+    for (let j = bits.length - 1; j >= 0; j--) {
+      if (bits[j] !== 1) continue;
+      const cl = [-q, -c.enable];
+      if (j < m) cl.push(c.boundBits[j]);
+      for (let k = j + 1; k < m; k++) if (k >= bits.length || bits[k] === 0) cl.push(c.boundBits[k]);
+      cnf.addClause(cl);
+    }
+    return q;
+  });
+}

@@ -3,12 +3,12 @@
 import type { Task } from "../ground/task.js";
 import { bitLength, buildAdder } from "./adder.js";
 import type { CnfBuilder } from "./cnf.js";
-import { comparatorAssumptions, emitComparator } from "./comparator.js";
+import { comparatorAssumptions, comparatorAtLeast, emitComparator } from "./comparator.js";
 import type { Possible } from "./cost-inputs.js";
 import type { Layout } from "./layout.js";
 import type { ExtraCostInput } from "./relaxed-suffix.js";
 import type { StepRules } from "./step-rules.js";
-import { buildUnary, unaryAssumptions, type UnaryInput } from "./unary.js";
+import { buildUnary, unaryAssumptions, unaryAtLeast, type UnaryInput } from "./unary.js";
 
 export interface CostPart {
   /** Sum bits (cost-adder-1) or outputs "sum ≥ j", j = 1..cap (cost-unary-1); 0 = constant false. */
@@ -17,6 +17,13 @@ export interface CostPart {
   /** The largest B that `assumptions` accepts below maxSum. */
   maxRepresentable: number;
   assumptions(B: number): number[];
+  /**
+   * cost-prune-1: for each bound lb of `lbs` (distinct, ascending, positive integers) a literal
+   * that unit propagation from assumptions(B) makes false whenever B < lb, and that the exact
+   * model of any assignment of cost ≥ lb may set true (0 = constant false); emits the clauses
+   * this needs (spec cost-prune-1, "Cost literals"). null: this part cannot ask any bound.
+   */
+  atLeast(cnf: CnfBuilder, lbs: readonly number[]): number[] | null;
   /** Third DIMACS comment line. */
   comment: string;
   /** "costBits" or "costCap", with its value, for the first comment line and the params. */
@@ -72,6 +79,7 @@ export function emitUnaryCost(x: CostEmitInput, costCap: number | undefined): Co
     maxSum: r.maxSum,
     maxRepresentable: cap - 1,
     assumptions: (B) => unaryAssumptions(r, B),
+    atLeast: (c, lbs) => unaryAtLeast(c, r.outputs, lbs),
     comment: `bound unary outputs=${r.outputs.join(",") || "-"}`,
     setting: { name: "costCap", value: cap },
     stats: { unaryLayers: r.layers, unaryInputs: inputs.length },
@@ -104,6 +112,7 @@ export function emitAdderCost(x: CostEmitInput, costBits: number | undefined): C
       if (B > maxRepresentable) throw new RangeError(`encode: bound ${B} needs more than costBits=${m} bits`);
       return comparatorAssumptions(cmp, B);
     },
+    atLeast: (c, lbs) => comparatorAtLeast(c, cmp, lbs),
     comment: `bound enable=${cmp.enable} bits=${cmp.boundBits.join(",") || "-"}`,
     setting: { name: "costBits", value: m },
     stats: { fullAdders: adder.fullAdders, halfAdders: adder.halfAdders },

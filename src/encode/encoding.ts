@@ -169,6 +169,7 @@ export function encodePlanning(task: Task, opts: EncodeOptions): Encoding {
     layers: null,
     costInputs: [],
     suffix: null,
+    cost: null,
     stats: {},
     part,
   };
@@ -197,6 +198,7 @@ export function encodePlanning(task: Task, opts: EncodeOptions): Encoding {
   for (const r of partRecs) r.beforeCost?.(ctx);
   const costValue = costRec.setting === "costBits" ? opts.costBits : opts.costCap;
   const cost = costRec.emit({ cnf, task, rules, L, possible: ctx.possible, part, extra: ctx.costInputs }, costValue);
+  ctx.cost = cost;
   for (const r of partRecs) r.afterCost?.(ctx);
   cnf.simplifyWith(null);
   for (const r of partRecs) r.atEnd?.(ctx);

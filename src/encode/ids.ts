@@ -5,8 +5,8 @@ export type CostEncodingId = "cost-adder-1" | "cost-unary-1";
 export const COST_ENCODINGS: readonly CostEncodingId[] = ["cost-adder-1", "cost-unary-1"];
 
 /** Optional parts of a planning CNF, listed in their canonical (emission) order. */
-export type PartId = "reach-1" | "relaxed-suffix-1" | "landmarks-1" | "eager-steps-1" | "empty-steps-last-1";
-export const PARTS: readonly PartId[] = ["reach-1", "relaxed-suffix-1", "landmarks-1", "eager-steps-1", "empty-steps-last-1"];
+export type PartId = "reach-1" | "relaxed-suffix-1" | "landmarks-1" | "cost-prune-1" | "eager-steps-1" | "empty-steps-last-1";
+export const PARTS: readonly PartId[] = ["reach-1", "relaxed-suffix-1", "landmarks-1", "cost-prune-1", "eager-steps-1", "empty-steps-last-1"];
 
 /** Checks a parts list: known ids, no repeats, canonical order. Returns a copy. */
 export function checkParts(parts: readonly string[] | undefined): PartId[] {

@@ -4,6 +4,7 @@ import type { Task } from "../ground/task.js";
 import type { CnfBuilder } from "./cnf.js";
 import type { Possible } from "./cost-inputs.js";
 import { emitAdderCost, emitUnaryCost, type CostEmitInput, type CostPart } from "./cost-part.js";
+import { emitCostPrune } from "./cost-prune.js";
 import { emitEagerSteps } from "./eager-steps.js";
 import { checkLandmarks, emitLandmarks } from "./landmarks.js";
 import { emitEmptyStepsLast } from "./empty-steps-last.js";
@@ -41,6 +42,8 @@ export interface EmitContext {
   /** Literals parts add to the plan's cost (counted by the cost encoding after the steps). */
   costInputs: ExtraCostInput[];
   suffix: SuffixVars | null;
+  /** The cost part, once emitted (afterCost and atEnd hooks). */
+  cost: CostPart | null;
   stats: Record<string, number>;
   /** Closes a stretch of clauses under a name (clause and variable counts per part). */
   part(name: string): void;
@@ -191,6 +194,16 @@ export const PART_RECORDS: readonly PartRecord[] = [
     afterCost(ctx) {
       emitLandmarks(ctx.cnf, ctx.L, ctx.params["landmarks-1"]?.landmarks ?? [], ctx.suffix);
       ctx.part("landmarks");
+    },
+  },
+  {
+    id: "cost-prune-1",
+    summary: "action a in step t only if cost ≥ lb(a,t), an admissible layered h-max bound through a at t: one clause on the cost encoding's literals per pair with lb above the formula's least cost (sound for every bound B)",
+    spec: "cost-prune-1.md",
+    proof: "threshold",
+    afterCost(ctx) {
+      ctx.stats.costPrunePairs = emitCostPrune(ctx.cnf, ctx.task, ctx.info, ctx.L, ctx.cost!, !ctx.goalAtEnd, ctx.possible);
+      ctx.part("cost-prune");
     },
   },
   {

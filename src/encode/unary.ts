@@ -102,3 +102,17 @@ export function unaryAssumptions(r: UnaryResult, B: number): number[] {
   const o = r.outputs[B];
   return o === 0 ? [] : [-o];
 }
+
+/**
+ * cost-prune-1 on cost-unary-1: the literal of lb is o_k, k = min(lb, cap) (0 when the counter
+ * never reaches k); first the downward chain [−o_{j+1}, o_j] for j = 1..kmax−1 over the outputs
+ * that exist, so that the assumption −o_{B+1} propagates −o_k for every k > B. null when cap = 0.
+ */
+export function unaryAtLeast(cnf: { addClause(lits: ArrayLike<number>): void }, outputs: readonly number[], lbs: readonly number[]): number[] | null {
+  const cap = outputs.length;
+  if (cap === 0) return null;
+  const ks = lbs.map((lb) => Math.min(lb, cap));
+  const kmax = Math.max(...ks);
+  for (let j = 1; j < kmax; j++) if (outputs[j] !== 0) cnf.addClause([-outputs[j], outputs[j - 1]]);
+  return ks.map((k) => outputs[k - 1]);
+}

@@ -8,13 +8,13 @@ import { encodePlanning, extractPlan, type Encoding } from "../../src/encode/ind
 import type { Task } from "../../src/ground/task.js";
 import { Solver } from "../../src/sat/index.js";
 import { applicable, cheapestWithin, initialState, isGoal, optimalCost, replayGround, successor, type RefState } from "../support/reference.js";
-import { EAGER_FORMULAS, GOLDEN_FORMULAS, type GoldenFormula } from "./golden.js";
+import { EAGER_FORMULAS, GOLDEN_FORMULAS, PRUNE_FORMULAS, type GoldenFormula } from "./golden.js";
 import { Oracle } from "./oracle.js";
 import { factoredWithGroups, movesTaskArb, nonTrivial, richTaskArb, runs } from "./rich-task.js";
 
 type Tasked = { task: Task; groups: number[][] };
-/** Every formula with a golden CNF, eager-steps-1 included. */
-const FORMULAS = [...GOLDEN_FORMULAS, ...EAGER_FORMULAS];
+/** Every threshold formula with a golden CNF, eager-steps-1 and cost-prune-1 included. */
+const FORMULAS = [...GOLDEN_FORMULAS, ...EAGER_FORMULAS, ...PRUNE_FORMULAS];
 
 /** eager-steps-1: does some action of `prev` write what `b` reads, or read or write what `b` writes (or is `b` itself)? */
 function dependsOn(task: Task, b: number, prev: readonly number[]): boolean {

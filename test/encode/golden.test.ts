@@ -4,7 +4,7 @@
 import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { cheapestWithin } from "../support/reference.js";
-import { EAGER_FORMULAS, encodeFixture, GOLDEN_FORMULAS, goldenFile, loadFixtures, SUFFIX_FORMULAS } from "./golden.js";
+import { EAGER_FORMULAS, encodeFixture, GOLDEN_FORMULAS, goldenFile, loadFixtures, PRUNE_FORMULAS, PRUNE_SUFFIX_FORMULAS, SUFFIX_FORMULAS } from "./golden.js";
 import { Oracle } from "./oracle.js";
 
 const fixtures = loadFixtures();
@@ -53,7 +53,7 @@ describe("golden CNFs", () => {
   });
 
   for (const fx of fixtures) {
-    for (const f of [...GOLDEN_FORMULAS, ...EAGER_FORMULAS]) {
+    for (const f of [...GOLDEN_FORMULAS, ...EAGER_FORMULAS, ...PRUNE_FORMULAS]) {
       it(`${f.id} on ${fx.name} equals its golden file byte for byte`, () => {
         const golden = readFileSync(goldenFile(f, fx), "utf8");
         expect(encodeFixture(f, fx).toDimacs()).toBe(golden);
@@ -74,7 +74,7 @@ describe("golden CNFs", () => {
   }
 
   for (const fx of fixtures) {
-    for (const f of SUFFIX_FORMULAS) {
+    for (const f of [...SUFFIX_FORMULAS, ...PRUNE_SUFFIX_FORMULAS]) {
       it(`${f.id} (state pairs [0,1], [0,${fx.steps}]) on ${fx.name} equals its golden file byte for byte`, () => {
         expect(encodeFixture(f, fx).toDimacs()).toBe(readFileSync(goldenFile(f, fx), "utf8"));
       });
@@ -96,7 +96,7 @@ describe("golden CNFs", () => {
 
   it("regenerating is deterministic (fresh copies of the task, every encoding)", () => {
     for (const fx of fixtures) {
-      for (const id of [...GOLDEN_FORMULAS, ...EAGER_FORMULAS, ...SUFFIX_FORMULAS]) {
+      for (const id of [...GOLDEN_FORMULAS, ...EAGER_FORMULAS, ...SUFFIX_FORMULAS, ...PRUNE_FORMULAS, ...PRUNE_SUFFIX_FORMULAS]) {
         const a = encodeFixture(id, fx);
         const b = encodeFixture(id, structuredClone(fx));
         const text = a.toDimacs();

@@ -52,6 +52,20 @@ export const SUFFIX_FORMULAS: readonly GoldenFormula[] = STEP_ENCODINGS.flatMap(
   }),
 );
 
+/** cost-prune-1 with reach-1 and empty-steps-last-1, every step × cost encoding (threshold formulas). */
+export const PRUNE_FORMULAS: readonly GoldenFormula[] = STEP_ENCODINGS.flatMap((encoding) =>
+  COST_ENCODINGS.map((cost) => {
+    const parts: PartId[] = ["reach-1", "cost-prune-1", "empty-steps-last-1"];
+    return { id: [encoding, cost, ...parts].join("+"), encoding, cost, parts };
+  }),
+);
+
+/** cost-prune-1 in the relaxed-suffix formulas of SUFFIX_FORMULAS (same state pairs). */
+export const PRUNE_SUFFIX_FORMULAS: readonly GoldenFormula[] = SUFFIX_FORMULAS.map((f) => {
+  const parts: PartId[] = ["reach-1", "relaxed-suffix-1", "cost-prune-1", "empty-steps-last-1"];
+  return { ...f, id: [f.encoding, f.cost, ...parts].join("+"), parts };
+});
+
 /**
  * encodings/golden/<id>.<fixture>.cnf; the plain step encodings with cost-adder-1 and no parts
  * keep the name they had before cost encodings and parts existed: <step>.<fixture>.cnf.

@@ -196,6 +196,38 @@ describe("landmark clauses in proofs (landmarks-1)", () => {
   }, 300_000);
 });
 
+describe("cost-bounded pruning in proofs (cost-prune-1)", () => {
+  it("proofs with the part find the reference optimum and audit; a certificate that drops the part from its id is rejected", async () => {
+    let proofs = 0;
+    let tampered = false;
+    await fc.assert(
+      fc.asyncProperty(fc.constantFrom(...scenarios), fc.integer({ min: 1, max: 500 }), fc.constantFrom("cost-unary-1", "cost-adder-1"), async (sc, seed, cost) => {
+        const domain = fs.readFileSync(path.join(root, "benchmarks/domains", sc.name, "domain.pddl"), "utf8");
+        const encoding = `forall-1+${cost}+reach-1+cost-prune-1+empty-steps-last-1`;
+        const { out, reference } = await solveText(domain, generateProblem(sc, "tiny", seed), { ...GENERAL_ONLY, encoding, searchHelper: false });
+        expect(out.cost).toBe(reference); // source: exhaustive search (test/support/reference.ts)
+        if (!out.certificate?.formula) return disposeOutcome(out);
+        expect(out.encoding).toContain("cost-prune-1");
+        proofs++;
+        const dir = await certify(out);
+        expect(failed(dir)).toEqual([]);
+        if (tampered) return;
+        const file = path.join(dir, "certificate.json");
+        const j = JSON.parse(fs.readFileSync(file, "utf8"));
+        j.encoding.parts = j.encoding.parts.filter((p: string) => p !== "cost-prune-1");
+        j.encoding.id = j.encoding.id.replace("+cost-prune-1", "");
+        fs.writeFileSync(file, JSON.stringify(j));
+        // the part is a function of task, horizon and encoding: the rebuilt CNF differs
+        expect(failed(dir)).toEqual(expect.arrayContaining(["cnf-hash"]));
+        tampered = true;
+      }),
+      { numRuns: 40, seed: 20261205 },
+    );
+    expect(proofs).toBeGreaterThan(5);
+    expect(tampered).toBe(true);
+  }, 300_000);
+});
+
 describe("the recorded search route (landmark-search)", () => {
   it.skipIf(availableParallelism() < 2)("when no SAT formula fits, the helper's A* optimum with its search record is claimed as landmark-search and audits", async () => {
     let claims = 0;
