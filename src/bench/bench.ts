@@ -1,6 +1,6 @@
 // `plumbline bench SUITE`: loads the suite, generates scenario instances, runs every
 // (instance, configuration) pair not finished before, N at a time, and writes the report.
-import { cpus, hostname } from "node:os";
+import { availableParallelism, cpus, hostname } from "node:os";
 import { existsSync, mkdirSync, readFileSync } from "node:fs";
 import { join, resolve } from "node:path";
 import type { BenchMeta, RunRecord } from "../report/record.js";
@@ -111,6 +111,8 @@ export async function runBench(opts: BenchOptions): Promise<BenchResult> {
     outDir,
     timeLimit: plan.timeLimit,
     memoryLimit: plan.memoryLimit,
+    // a fair share of the cores: solve's A* helper takes turns with its SAT queries on one core
+    threads: Math.max(1, Math.floor(availableParallelism() / jobs)),
     graceSeconds: opts.graceSeconds ?? defaultGrace(plan.timeLimit),
     cli: opts.cli,
     signal: opts.signal,

@@ -6,6 +6,8 @@ export interface Limits {
   timeLimit: number;
   /** MB per run. */
   memoryLimit: number;
+  /** Cores per run (the machine's cores ÷ runs at the same time), when the bench knows it. */
+  threads?: number;
 }
 
 export interface RunFiles {
@@ -48,6 +50,7 @@ const satConfig = (name: string, encoding: string): Configuration => ({
     String(l.timeLimit),
     "--memory-limit",
     String(l.memoryLimit),
+    ...(l.threads !== undefined ? ["--threads", String(l.threads)] : []),
   ],
 });
 

@@ -45,6 +45,17 @@ export class Budget {
     return null;
   }
 
+  /**
+   * Waits `ms` milliseconds without using the CPU, in pieces of at most 250 ms that end early at
+   * the deadline or once an abort is requested (so a pause never delays a stop).
+   */
+  async sleep(ms: number): Promise<void> {
+    const until = Math.min(Date.now() + ms, this.deadline);
+    while (Date.now() < until && !isAborted(this.signal)) {
+      await new Promise<void>((resolve) => setTimeout(resolve, Math.min(250, until - Date.now())));
+    }
+  }
+
   /** Seconds left (Infinity without a time limit). */
   left(): number {
     return this.deadline === Infinity ? Infinity : Math.max(0, (this.deadline - Date.now()) / 1000);

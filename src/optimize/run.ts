@@ -13,8 +13,8 @@ import { formulaId, type Formula, type FormulaSpec } from "./formula.js";
 import { planningPipeline, type PlanningPipeline } from "./pipeline.js";
 import { checkPlan, dropRedundant, InternalError, toGroundIds, type CheckedPlan } from "./plan-check.js";
 import { Progress } from "./progress.js";
-import { builtinSession, externalSession, makeWorkDir, type ProofFile, type QueryResult, type SatSession } from "./sat-session.js";
-import { helperCoreAvailable, SearchHelper } from "./search-helper.js";
+import { builtinSession, externalSession, makeWorkDir, SLICE_MS, type ProofFile, type QueryResult, type SatSession } from "./sat-session.js";
+import { defaultThreads, SearchHelper } from "./search-helper.js";
 import type { OptimizeOptions, TimelineEvent } from "./types.js";
 
 export class Run {
@@ -82,11 +82,28 @@ export class Run {
     this.progress.say(`plan of cost ${plan.cost} (${plan.length} actions) from ${origin}`);
   }
 
-  /** Starts A* with landmark-cut on a second thread (when there is a second core and it is wanted). */
+  /** Starts A* with landmark-cut on a second thread (unless it is not wanted). */
   startHelper(): void {
-    if (this.opts.searchHelper === false || this.helper !== null || !helperCoreAvailable()) return;
+    if (this.opts.searchHelper === false || this.helper !== null) return;
     this.helper = new SearchHelper(this.prepared.task, { deadline: this.budget.deadline, memoryLimitBytes: this.budget.memoryLimitBytes });
-    this.progress.say("A* with landmark-cut started on a second thread (a plan it finds becomes the incumbent)");
+    this.progress.say(
+      this.turnTaking
+        ? "A* with landmark-cut started on a second thread, taking turns with the SAT queries on one core (a plan it finds becomes the incumbent)"
+        : "A* with landmark-cut started on a second thread (a plan it finds becomes the incumbent)",
+    );
+  }
+
+  /** One core for two searches: the SAT queries give the A* helper most of the time while it runs. */
+  get turnTaking(): boolean {
+    return (this.opts.threads ?? defaultThreads()) < 2;
+  }
+
+  /**
+   * Milliseconds a SAT query waits after an unfinished time slice (of about 500 ms): three
+   * slices while the helper's A* is running on the shared core, else none.
+   */
+  satPause(): number {
+    return this.turnTaking && this.helper?.running === true ? 3 * SLICE_MS : 0;
   }
 
   /** Takes the helper's result if it has arrived: an optimal plan becomes the incumbent. True when something changed. */
@@ -251,7 +268,7 @@ export class Run {
     this.satCalls++;
     this.progress.state.bound = Number.isFinite(bound) ? bound : null;
     const units = [...s.formula.boundUnits(bound), ...extra];
-    return s.query(units, this.budget, { conflicts, tick: () => this.progress.tick(), interrupt: () => this.helperHasNews() });
+    return s.query(units, this.budget, { conflicts, tick: () => this.progress.tick(), interrupt: () => this.helperHasNews(), pause: () => this.satPause() });
   }
 
   /** Decodes, linearises and validates a model of the open formula. */

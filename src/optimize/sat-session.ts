@@ -7,6 +7,9 @@ import { FileProofWriter, Solver, solveExternal } from "../sat/index.js";
 import type { Budget } from "./budget.js";
 import { checkerCnf, type Formula } from "./formula.js";
 
+/** Milliseconds of one time slice of the built-in solver (between ticks, interrupts and pauses). */
+export const SLICE_MS = 500;
+
 export type QueryStatus = "sat" | "unsat" | "unknown";
 
 export interface ProofFile {
@@ -34,6 +37,11 @@ export interface QueryOptions {
   tick?: () => void;
   /** Asked between time slices: true gives up the query (status unknown, `interrupted`), e.g. when a better plan arrived. */
   interrupt?: () => boolean;
+  /**
+   * Asked between time slices of the built-in solver: milliseconds to wait before the next one
+   * (0: go on at once), so that a search on another thread can have the core (turn-taking).
+   */
+  pause?: () => number;
 }
 
 export interface SessionStats {
@@ -77,10 +85,14 @@ export function builtinSession(formula: Formula, proofPath: string | null): SatS
         const left = opts.conflicts === undefined ? undefined : opts.conflicts - (solver.stats().conflicts - start);
         if (left !== undefined && left <= 0) return { status: "unknown" };
         if (budget.stop() !== null) return { status: "unknown" };
-        const slice = Math.min(budget.deadline, Date.now() + 500);
+        const slice = Math.min(budget.deadline, Date.now() + SLICE_MS);
         const r = await solver.solveAsync(units, { deadline: slice, conflicts: left, signal: budget.signal });
         opts.tick?.();
         if (r !== "sat" && r !== "unsat" && opts.interrupt?.()) return { status: "unknown", interrupted: true };
+        if (r !== "sat" && r !== "unsat") {
+          const wait = opts.pause?.() ?? 0;
+          if (wait > 0) await budget.sleep(wait);
+        }
         if (r === "sat") {
           return { status: "sat", value: (v: number) => solver.value(v) === true };
         }

@@ -59,6 +59,11 @@ export class SearchHelper {
     return this.done;
   }
 
+  /** Is the search still looking for its first result? */
+  get running(): boolean {
+    return this.done === null;
+  }
+
   /** Has a result arrived that was not taken yet? */
   get pending(): boolean {
     return this.done !== null && !this.taken;
@@ -69,7 +74,7 @@ export class SearchHelper {
   }
 }
 
-/** Is there a second core for the helper? */
-export function helperCoreAvailable(): boolean {
-  return availableParallelism() >= 2;
+/** Cores a run uses by default: the machine's, at most 2 (the SAT queries and the A* helper). */
+export function defaultThreads(): number {
+  return Math.min(2, availableParallelism());
 }

@@ -2,7 +2,7 @@
 // for an optimal plan of the analysed task and posts it back (search-helper.ts starts it).
 import { parentPort, workerData } from "node:worker_threads";
 import type { Task } from "../ground/task.js";
-import { astar, searchRecord } from "../search/index.js";
+import { astarRecorded } from "../search/index.js";
 
 interface SearchInput {
   task: Task;
@@ -15,12 +15,10 @@ const input = workerData as SearchInput;
 /** Largest search the record is made of (states): the audit checks every one of them. */
 const RECORD_STATES = 500_000;
 
-const r = astar(input.task, { heuristic: "landmark-cut", deadline: input.deadline, maxStates: input.maxStates, costBound: input.costBound });
+const { result: r, record } = astarRecorded(input.task, { deadline: input.deadline, maxStates: input.maxStates, costBound: input.costBound }, RECORD_STATES);
 const result = { status: r.status, plan: r.plan, cost: r.cost, lowerBound: r.lowerBound ?? null, expanded: r.expanded, stopReason: r.stopReason ?? null, seconds: r.seconds, record: null };
 parentPort!.postMessage(result);
-// an optimal plan found: search again, pruned just below its cost, and record the whole search,
-// so the optimum can be certified without SAT (claim landmark-search, checked by the audit)
-if (r.status === "solved" && r.cost !== null && (r.states ?? 0) <= RECORD_STATES) {
-  const record = searchRecord(input.task, r.cost, { deadline: input.deadline, maxStates: RECORD_STATES });
-  if (record) parentPort!.postMessage({ ...result, record });
-}
+// an optimal plan found: the search that found it is recorded (every state it stored), so the
+// optimum can be certified without SAT (claim landmark-search, checked by the audit)
+const rec = record();
+if (rec) parentPort!.postMessage({ ...result, record: rec });

@@ -68,10 +68,17 @@ export interface OptimizeOptions {
    */
   horizonLimits?: { maxOptimalStates?: number; maxExplicitStates?: number; maxProjectionStates?: number };
   /**
-   * A* with landmark-cut on a second thread beside the SAT queries (default: when the machine
-   * has two cores or more); an optimal plan it finds becomes the incumbent.
+   * A* with landmark-cut on a second thread beside the SAT queries (default true); an optimal
+   * plan it finds becomes the incumbent. How it shares the CPU depends on `threads`.
    */
   searchHelper?: boolean;
+  /**
+   * Cores the run may keep busy (default: the machine's, at most 2). With 2 or more the A*
+   * helper has a core of its own; with 1 the two take turns: while A* runs, a SAT query that
+   * has not finished in a time slice waits three slices before its next one (SAT gets a
+   * quarter of the core, A* the rest), and once A* has ended the SAT side runs unhindered.
+   */
+  threads?: number;
   /**
    * The audit's plain search over every reachable state of the ground task (src/certify, passed in
    * by the CLI; this stage may not import it): the optimal cost (null: no plan) and the number of

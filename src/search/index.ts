@@ -29,4 +29,4 @@ export { planSteps, planNames } from "./plan-steps.js";
 export { astarProver, type OptimumProver, type OptimumProof, type ProverOptions } from "./prover.js";
 export { comparePlan, type CompareOptions, type CompareResult, type Verdict } from "./compare.js";
 export { sideBySide, firstDivergence, type Column } from "./side-by-side.js";
-export { searchRecord, type SearchRecord, type SearchRecordEntry } from "./search-record.js";
+export { astarRecorded, type SearchRecord, type SearchRecordEntry } from "./search-record.js";

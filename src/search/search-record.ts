@@ -4,12 +4,12 @@
 import type { Task } from "../ground/task.js";
 import { astarWith } from "./astar.js";
 import { unpackFacts } from "./bitstate.js";
-import { compileTask } from "./compiled.js";
+import { compileTask, type CompiledTask } from "./compiled.js";
 import { LandmarkCutHeuristic } from "./landmark-cut.js";
 import { RelaxedTask } from "./relaxed.js";
 import type { SearchSpace } from "./search-space.js";
 import { SuccessorTree } from "./successor-tree.js";
-import type { Landmark, SearchOptions } from "./types.js";
+import type { AstarOptions, Landmark, SearchResult } from "./types.js";
 
 export interface SearchRecordEntry {
   /** The state: its true facts, ascending. */
@@ -32,20 +32,32 @@ export interface SearchRecord {
 }
 
 /**
- * A* with landmark-cut pruned at cost ≤ bound − 1, recorded; null when it finds a plan cheaper
- * than `bound`, stops at a limit, stores more than `maxStates` states, or a state it pruned
- * cannot be justified by landmarks alone (landmark-cut may take h-max when it is larger, with
- * conditional effects). The landmarks kept per pruned state are the dearest ones, just enough.
+ * A* with landmark-cut for an optimal plan, whose search itself becomes the record when it
+ * solves the task: the goal was popped at f = C, so every state it stored is either expanded at
+ * its cost from the start or still open with g + h ≥ C — the record proving "nothing costs less
+ * than C" needs no second search. `record()` builds it (null over `maxRecordStates` states, or
+ * when a state's landmarks cannot justify it); call it after using the result.
  */
-export function searchRecord(task: Task, bound: number, opts: SearchOptions = {}): SearchRecord | null {
+export function astarRecorded(task: Task, opts: Omit<AstarOptions, "heuristic" | "keepSpace">, maxRecordStates: number): { result: SearchResult; record: () => SearchRecord | null } {
   const ct = compileTask(task);
   const rt = new RelaxedTask(task);
-  const heur = new LandmarkCutHeuristic(rt, ct.words);
   let kept: SearchSpace | null = null;
-  const r = astarWith(ct, new SuccessorTree(task), heur, { ...opts, costBound: bound - 1, keepSpace: (s) => (kept = s) });
-  if (r.status === "solved" || kept === null) return null;
-  if (r.status === "limit" && r.stopReason !== "cost-bound") return null;
-  const space = kept as SearchSpace;
+  const result = astarWith(ct, new SuccessorTree(task), new LandmarkCutHeuristic(rt, ct.words), { ...opts, keepSpace: (s) => (kept = s) });
+  const record = (): SearchRecord | null => {
+    const space = kept as SearchSpace | null;
+    kept = null;
+    if (result.status !== "solved" || result.cost === null || space === null || space.table.size > maxRecordStates) return null;
+    return recordOf(ct, rt, space, result.cost);
+  };
+  return { result, record };
+}
+
+/**
+ * The record of a kept search space at `bound`: expanded states as they are, the others with the
+ * dearest landmarks that just reach bound − g (null when a state's landmarks cannot: landmark-cut
+ * may take h-max when it is larger, with conditional effects).
+ */
+function recordOf(ct: CompiledTask, rt: RelaxedTask, space: SearchSpace, bound: number): SearchRecord | null {
   const recorder = new LandmarkCutHeuristic(rt, ct.words);
   const entries: SearchRecordEntry[] = [];
   for (let id = 0; id < space.table.size; id++) {

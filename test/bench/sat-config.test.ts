@@ -3,6 +3,7 @@
 // folder and limits; the certificate is then audited and the verdict and proof size recorded.
 // (The real optimizer is exercised by the bench itself and by test:slow.)
 import { readFileSync, writeFileSync } from "node:fs";
+import { availableParallelism } from "node:os";
 import { join } from "node:path";
 import { describe, expect, it } from "vitest";
 import { runBench } from "../../src/bench/index.js";
@@ -43,7 +44,7 @@ describe("SAT configurations", () => {
     const calls = readFileSync(log, "utf8").trim().split("\n").map((l) => JSON.parse(l) as string[]);
     const solveGood = calls.find((c) => c[0] === "solve" && c[2].endsWith("good.pddl") && c.includes("forall-1"))!;
     const runDir = join(out, "runs/sat-forall/d/good");
-    expect(solveGood).toEqual(["solve", join(dir, "d/domain.pddl"), join(dir, "d/good.pddl"), "--json", "--encoding", "forall-1", "--certificate", join(runDir, "certificate"), "--plan", join(runDir, "plan.txt"), "--time-limit", "40", "--memory-limit", "700"]);
+    expect(solveGood).toEqual(["solve", join(dir, "d/domain.pddl"), join(dir, "d/good.pddl"), "--json", "--encoding", "forall-1", "--certificate", join(runDir, "certificate"), "--plan", join(runDir, "plan.txt"), "--time-limit", "40", "--memory-limit", "700", "--threads", String(availableParallelism())]); // one run at a time: every core
     expect(calls.some((c) => c[0] === "solve" && c.includes("seq-1"))).toBe(true);
     expect(calls.filter((c) => c[0] === "audit").map((c) => c.slice(1))).toEqual(
       expect.arrayContaining([[join(runDir, "certificate"), "--json", "--time-limit-per-certificate", "40"], [join(out, "runs/sat-seq/d/good/certificate"), "--json", "--time-limit-per-certificate", "40"], [join(out, "runs/sat-forall/d/bad/certificate"), "--json", "--time-limit-per-certificate", "40"]]),

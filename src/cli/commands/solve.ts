@@ -22,6 +22,7 @@ interface SolveCliOptions {
   sat?: string;
   suffix?: boolean;
   generalBoundsOnly?: boolean;
+  threads?: string;
 }
 
 const CAUTION = "(plans are only as good as the model: an optimal plan of an incomplete model can still be unsafe in the real world)";
@@ -65,11 +66,18 @@ export function registerSolve(program: Command, ctx: CliContext): void {
       )
       .option("--no-suffix", "prove only at completeness thresholds (no relaxed-suffix formulas at short horizons)")
       .option("--general-bounds-only", "completeness thresholds from the general bounds only, without exploring the state space (for measurements; the certificate records it)")
+      .option(
+        "--threads <n>",
+        "cores to keep busy: 2 runs A* with landmark-cut on a core of its own beside the SAT queries (its optimal plan becomes the incumbent); " +
+          "1 makes the two take turns on one core, A* getting three quarters while it runs (default: the machine's cores, at most 2; " +
+          "give 1 when several runs share the machine, one core each)",
+      )
       .option("--sat <solver>", "builtin (default), or external:CMD — a DIMACS solver run once per query ('{cnf}' and '{proof}' stand for the files); its DRAT proof is checked, and without one the final query is re-run with the built-in solver", "builtin"),
   ).action(async (domain: string, problem: string, opts: SolveCliOptions) => {
     ctx.configure(opts);
     const timeLimit = positiveNumber("--time-limit", opts.timeLimit);
     const memoryLimitMb = positiveNumber("--memory-limit", opts.memoryLimit);
+    const threads = positiveNumber("--threads", opts.threads, true);
     resolveEncoding(opts.encoding); // a usage error before any work
     checkOutputs(
       [opts.plan !== undefined ? { flag: "--plan", path: opts.plan, kind: "file" } : null, opts.certificate !== undefined ? { flag: "--certificate", path: opts.certificate, kind: "folder", reuseIf: isCertificateFolder } : null],
@@ -82,6 +90,7 @@ export function registerSolve(program: Command, ctx: CliContext): void {
       suffix: opts.suffix !== false,
       horizonLimits: opts.generalBoundsOnly ? { maxOptimalStates: 0, maxExplicitStates: 1 } : undefined,
       sat,
+      threads,
       timeLimit,
       memoryLimitMb,
       signal: ctx.signal,
