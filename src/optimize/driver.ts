@@ -137,7 +137,7 @@ async function findFirstPlan(run: Run, exhausted: boolean): Promise<OptimizeOutc
       return finish(run, "unknown", null, run.budget.stop() ?? "time");
     }
     if (last) {
-      const proof = s.finishProof();
+      const proof = run.finishProof(s);
       if (proof === null) {
         run.close();
         run.notes.push("the reachability query was unsatisfiable, but no checked proof was produced");
@@ -203,7 +203,7 @@ export async function thresholdRoute(run: Run, known?: HorizonReport): Promise<O
       if (q.interrupted) break; // a better plan arrived from the helper: ask again with its cost
       if (q.status === "unknown") return finish(run, "feasible", null, run.budget.stop() ?? "time", { horizon: rep });
       if (q.status === "unsat") {
-        const proof = s.finishProof() ?? (await run.reproveBuiltin(s.formula, C - 1));
+        const proof = run.finishProof(s) ?? (await run.reproveBuiltin(s.formula, C - 1));
         if (proof === "sat") throw new InternalError("the built-in solver found a model the external solver called impossible");
         if (proof === null) return finish(run, "feasible", null, run.budget.stop() ?? "no-proof");
         return proven(run, rep, s.formula, C - 1, proof, "horizon-unsat");

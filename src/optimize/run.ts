@@ -14,8 +14,12 @@ import { planningPipeline, type PlanningPipeline } from "./pipeline.js";
 import { checkPlan, dropRedundant, InternalError, toGroundIds, type CheckedPlan } from "./plan-check.js";
 import { Progress } from "./progress.js";
 import { builtinSession, externalSession, makeWorkDir, SLICE_MS, type ProofFile, type QueryResult, type SatSession } from "./sat-session.js";
+import { PortfolioRun } from "./portfolio.js";
 import { defaultThreads, SearchHelper } from "./search-helper.js";
 import type { OptimizeOptions, TimelineEvent } from "./types.js";
+
+/** How long a proving query runs alone before a second solver joins it (when a core is free). */
+const PORTFOLIO_AFTER_MS = 2000;
 
 export class Run {
   readonly budget: Budget;
@@ -263,12 +267,70 @@ export class Run {
     this.session = null;
   }
 
-  /** One query "cost ≤ bound" (Infinity: any plan) on the open session, plus `extra` unit literals. */
+  /**
+   * One query "cost ≤ bound" (Infinity: any plan) on the open session, plus `extra` unit literals.
+   * A proving query (no conflict limit) still open after PORTFOLIO_AFTER_MS gets a second solver
+   * on the free core when there is one (portfolio.ts); whichever answers first is the answer.
+   */
   async ask(s: SatSession, bound: number, conflicts?: number, extra: readonly number[] = []): Promise<QueryResult> {
     this.satCalls++;
     this.progress.state.bound = Number.isFinite(bound) ? bound : null;
     const units = [...s.formula.boundUnits(bound), ...extra];
-    return s.query(units, this.budget, { conflicts, tick: () => this.progress.tick(), interrupt: () => this.helperHasNews(), pause: () => this.satPause() });
+    const t0 = Date.now();
+    let race: PortfolioRun | null = null;
+    const tick = () => {
+      this.progress.tick();
+      if (race === null && conflicts === undefined && Date.now() - t0 >= (this.opts.portfolioAfterMs ?? PORTFOLIO_AFTER_MS) && this.portfolioCoreFree()) race = this.startPortfolio(s.formula, units);
+    };
+    let q: QueryResult;
+    try {
+      q = await s.query(units, this.budget, { conflicts, tick, interrupt: () => this.helperHasNews() || race?.decided != null, pause: () => this.satPause() });
+    } catch (e) {
+      await (race as PortfolioRun | null)?.stop();
+      throw e;
+    }
+    if (race === null) return q;
+    const r: PortfolioRun = race;
+    const won = q.interrupted ? r.decided : null;
+    if (won === null) {
+      await r.stop();
+      return q;
+    }
+    this.conflicts += won.conflicts;
+    this.event("portfolio", `the second solver answered first: ${won.status} (${won.conflicts} conflicts)`);
+    if (won.status === "unsat") {
+      await r.stop(true);
+      this.portfolioProof = { file: won.proof!.file, bytes: won.proof!.bytes, format: "binary", engine: "builtin" };
+      return { status: "unsat", proved: true };
+    }
+    await r.stop();
+    const model = won.model!;
+    return { status: "sat", value: (v) => model[v] === 1 };
+  }
+
+  /** The proof of the last unsat answer: the second solver's when it answered first, else the session's. */
+  finishProof(s: SatSession): ProofFile | null {
+    const p = this.portfolioProof;
+    this.portfolioProof = null;
+    return p ?? s.finishProof();
+  }
+
+  private portfolioProof: ProofFile | null = null;
+  private portfolioSeq = 0;
+
+  /**
+   * Is a core free for a second solver? With two threads or more, the built-in solver, the A*
+   * helper no longer searching, and room under the memory limit for a second copy of the run.
+   */
+  private portfolioCoreFree(): boolean {
+    if (this.opts.portfolio === false || this.turnTaking || this.engine !== "builtin" || this.helper?.running === true) return false;
+    return this.budget.memoryLeft() > this.budget.rss();
+  }
+
+  private startPortfolio(formula: Formula, units: readonly number[]): PortfolioRun {
+    this.event("portfolio", "a second solver (the clauses in reverse order, a proof of its own) races the proving query on the free core");
+    this.progress.say("a second solver races the proving query on the free core");
+    return new PortfolioRun(formula, units, `${this.workDir}/proof-second-${++this.portfolioSeq}.drat`, this.budget.deadline);
   }
 
   /** Decodes, linearises and validates a model of the open formula. */

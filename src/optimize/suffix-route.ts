@@ -96,7 +96,7 @@ async function atHorizon(run: Run, s: SatSession, h: number, pairs: [number, num
         run.raiseLower(bound + 1, `no plan of cost ≤ ${bound}: relaxed suffix after ${h} steps`);
         return { kind: "grow" };
       }
-      const proof = s.finishProof() ?? (await run.reproveBuiltin(s.formula, bound));
+      const proof = run.finishProof(s) ?? (await run.reproveBuiltin(s.formula, bound));
       if (proof === "sat") throw new InternalError("the built-in solver found a model the external solver called impossible");
       if (proof === null) return { kind: "stop" };
       return { kind: "done", outcome: proven(run, rep, s.formula, bound, proof, "suffix-unsat") };

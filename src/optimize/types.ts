@@ -80,6 +80,15 @@ export interface OptimizeOptions {
    */
   threads?: number;
   /**
+   * With 2 threads or more: a proving SAT query (no conflict limit) still open after 2 s while
+   * the A* helper is not searching gets a second solver on the free core — a fresh built-in
+   * solver on the same clauses in reverse order, with its own DRAT proof — and the first answer
+   * wins (default true).
+   */
+  portfolio?: boolean;
+  /** Milliseconds a proving query runs alone before the second solver joins (tests; default 2000). */
+  portfolioAfterMs?: number;
+  /**
    * The audit's plain search over every reachable state of the ground task (src/certify, passed in
    * by the CLI; this stage may not import it): the optimal cost (null: no plan) and the number of
    * reachable states, or null when the task is too large for it. With it, a run whose optimum is

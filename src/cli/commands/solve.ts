@@ -68,9 +68,10 @@ export function registerSolve(program: Command, ctx: CliContext): void {
       .option("--general-bounds-only", "completeness thresholds from the general bounds only, without exploring the state space (for measurements; the certificate records it)")
       .option(
         "--threads <n>",
-        "cores to keep busy: 2 runs A* with landmark-cut on a core of its own beside the SAT queries (its optimal plan becomes the incumbent); " +
-          "1 makes the two take turns on one core, A* getting three quarters while it runs (default: the machine's cores, at most 2; " +
-          "give 1 when several runs share the machine, one core each)",
+        "cores to keep busy: 2 runs A* with landmark-cut on a core of its own beside the SAT queries (its optimal plan becomes the incumbent), " +
+          "and once A* has ended a second solver races every proving query that takes over 2 s (first answer wins, with its own proof); " +
+          "1 makes A* and the SAT queries take turns on one core, A* getting three quarters while it runs, and starts no second solver " +
+          "(default: the machine's cores, at most 2; give 1 when several runs share the machine, one core each)",
       )
       .option("--sat <solver>", "builtin (default), or external:CMD — a DIMACS solver run once per query ('{cnf}' and '{proof}' stand for the files); its DRAT proof is checked, and without one the final query is re-run with the built-in solver", "builtin"),
   ).action(async (domain: string, problem: string, opts: SolveCliOptions) => {
