@@ -23,6 +23,7 @@ interface SolveCliOptions {
   suffix?: boolean;
   generalBoundsOnly?: boolean;
   threads?: string;
+  secondSolver?: boolean;
 }
 
 const CAUTION = "(plans are only as good as the model: an optimal plan of an incomplete model can still be unsafe in the real world)";
@@ -73,6 +74,7 @@ export function registerSolve(program: Command, ctx: CliContext): void {
           "1 makes A* and the SAT queries take turns on one core, A* getting three quarters while it runs, and starts no second solver " +
           "(default: the machine's cores, at most 2; give 1 when several runs share the machine, one core each)",
       )
+      .option("--no-second-solver", "never race a proving query with a second solver, even when a core is free (for measurements)")
       .option("--sat <solver>", "builtin (default), or external:CMD — a DIMACS solver run once per query ('{cnf}' and '{proof}' stand for the files); its DRAT proof is checked, and without one the final query is re-run with the built-in solver", "builtin"),
   ).action(async (domain: string, problem: string, opts: SolveCliOptions) => {
     ctx.configure(opts);
@@ -92,6 +94,7 @@ export function registerSolve(program: Command, ctx: CliContext): void {
       horizonLimits: opts.generalBoundsOnly ? { maxOptimalStates: 0, maxExplicitStates: 1 } : undefined,
       sat,
       threads,
+      portfolio: opts.secondSolver !== false,
       timeLimit,
       memoryLimitMb,
       signal: ctx.signal,
