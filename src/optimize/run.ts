@@ -1,5 +1,6 @@
 // One optimizer run's state: limits, progress, the best plan so far, bounds, timeline, and the
 // open SAT session — shared by the threshold route (driver.ts) and the suffix route.
+import * as fs from "node:fs";
 import { extractPlan, PARTS, type PartId, type PartParams } from "../encode/index.js";
 import type { GroundOptions, Task } from "../ground/index.js";
 import type { HorizonReport } from "../horizon/index.js";
@@ -261,6 +262,7 @@ export class Run {
   }
 
   close(): void {
+    this.dropPortfolioProof();
     if (!this.session) return;
     this.conflicts += this.session.stats().conflicts - this.sessionConflicts0;
     this.session.dispose();
@@ -275,6 +277,7 @@ export class Run {
   async ask(s: SatSession, bound: number, conflicts?: number, extra: readonly number[] = []): Promise<QueryResult> {
     this.satCalls++;
     this.progress.state.bound = Number.isFinite(bound) ? bound : null;
+    this.dropPortfolioProof(); // a proof belongs to the query it answered, never to a later one
     const units = [...s.formula.boundUnits(bound), ...extra];
     const t0 = Date.now();
     let race: PortfolioRun | null = null;
@@ -316,6 +319,11 @@ export class Run {
   }
 
   private portfolioProof: ProofFile | null = null;
+
+  private dropPortfolioProof(): void {
+    if (this.portfolioProof) fs.rmSync(this.portfolioProof.file, { force: true });
+    this.portfolioProof = null;
+  }
   private portfolioSeq = 0;
 
   /**
