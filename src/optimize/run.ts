@@ -275,6 +275,7 @@ export class Run {
    * on the free core when there is one (portfolio.ts); whichever answers first is the answer.
    */
   async ask(s: SatSession, bound: number, conflicts?: number, extra: readonly number[] = []): Promise<QueryResult> {
+    await this.yieldToEventLoop();
     this.satCalls++;
     this.progress.state.bound = Number.isFinite(bound) ? bound : null;
     this.dropPortfolioProof(); // a proof belongs to the query it answered, never to a later one
@@ -309,6 +310,19 @@ export class Run {
     await r.stop();
     const model = won.model!;
     return { status: "sat", value: (v) => model[v] === 1 };
+  }
+
+  private lastYield = Date.now();
+
+  /**
+   * A turn of the event loop's timers at most every 100 ms between queries: an AbortSignal fired
+   * by a timer or an event of the embedding program is seen even when every query answers within
+   * its first time slice (a run in the CLI's worker thread also sees the shared abort flag).
+   */
+  private async yieldToEventLoop(): Promise<void> {
+    if (Date.now() - this.lastYield < 100) return;
+    await new Promise<void>((resolve) => setTimeout(resolve, 0));
+    this.lastYield = Date.now();
   }
 
   /** The proof of the last unsat answer: the second solver's when it answered first, else the session's. */

@@ -4,6 +4,7 @@ import * as fs from "node:fs";
 import { tmpdir } from "node:os";
 import * as path from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
+import { generateProblem, scenarios } from "../../benchmarks/domains/index.js";
 import { parseDimacs, Solver } from "../../src/sat/index.js";
 import { parsePlan } from "../../src/plan/index.js";
 import { cli } from "../support/cli.js";
@@ -76,9 +77,14 @@ describe("plumbline solve + audit", () => {
   it("an interrupt (abort signal) stops the same way", async () => {
     const out = path.join(work, "sigint");
     fs.mkdirSync(out);
+    // a generated large harbour task: a first plan within a second, no proof of any kind for
+    // far longer (A* alone needs over 20 s). In-process, the signal is seen when the run's
+    // thread next turns the event loop (between queries), not inside a synchronous phase.
+    const problem = path.join(work, "harbour-large-1.pddl");
+    fs.writeFileSync(problem, generateProblem(scenarios.find((s) => s.name === "harbour")!, "large", 1));
     const ac = new AbortController();
     setTimeout(() => ac.abort(), 1500);
-    const r = await cli(["solve", H("domain.pddl"), H("problem-05.pddl"), "--json", "--plan", path.join(out, "plan.txt")], ac.signal);
+    const r = await cli(["solve", H("domain.pddl"), problem, "--json", "--plan", path.join(out, "plan.txt")], ac.signal);
     expect(r.code).toBe(3);
     expect(r.json()).toMatchObject({ status: "feasible", stopReason: "interrupted" });
     expect(fs.readdirSync(out)).toEqual(["plan.txt"]);
