@@ -112,7 +112,8 @@ export function unaryAtLeast(cnf: { addClause(lits: ArrayLike<number>): void }, 
   const cap = outputs.length;
   if (cap === 0) return null;
   const ks = lbs.map((lb) => Math.min(lb, cap));
-  const kmax = Math.max(...ks);
+  let kmax = 0;
+  for (const k of ks) if (k > kmax) kmax = k;
   for (let j = 1; j < kmax; j++) if (outputs[j] !== 0) cnf.addClause([-outputs[j], outputs[j - 1]]);
   return ks.map((k) => outputs[k - 1]);
 }
