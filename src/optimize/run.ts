@@ -113,13 +113,15 @@ export class Run {
 
   /** Takes the helper's result if it has arrived: an optimal plan becomes the incumbent. True when something changed. */
   pollHelper(): boolean {
+    if (this.helper?.recordSettled && this.helper.record === null && this.optimumKnown !== null) this.tryStateSpace();
     const r = this.helper?.take();
     if (!r) return false;
     if (r.status === "solved" && r.plan && r.cost !== null) {
       if (this.best === null || r.cost < this.best.cost) this.improve(r.plan, "A* with landmark-cut (second thread)");
       this.optimumKnown = r.cost;
       this.event("helper", `A* with landmark-cut: the optimum is ${r.cost} (exhaustive search, ${r.expanded} expansions; not certifiable by itself)`);
-      this.tryStateSpace();
+      // the record of that search is on its way (claim landmark-search): the plain state-space
+      // search, as long as the record again on the main thread, waits until it is known to be missing
       return true;
     }
     this.event("helper", `A* with landmark-cut ended: ${r.status}${r.stopReason ? ` (${r.stopReason})` : ""}${r.lowerBound !== null ? `, its lower bound ${r.lowerBound}` : ""}`);

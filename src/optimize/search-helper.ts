@@ -29,6 +29,8 @@ export class SearchHelper {
   private taken = false;
   /** The search record, when the worker sent one after its result. */
   record: SearchRecord | null = null;
+  /** The worker has sent its search record (or said it has none), or has ended. */
+  recordSettled = false;
   readonly finished: Promise<HelperResult>;
   /** Resolves when the thread has ended (after its result and any search record). */
   readonly exited: Promise<void>;
@@ -41,10 +43,13 @@ export class SearchHelper {
         if (this.done === null) this.done = r;
         resolve(this.done);
       };
-      this.worker.on("message", (m: HelperResult) => {
-        if (m.record) this.record = m.record;
-        else settle(m);
+      this.worker.on("message", (m: HelperResult & { recordDone?: boolean }) => {
+        if (m.recordDone) {
+          this.record = m.record;
+          this.recordSettled = true;
+        } else settle(m);
       });
+      this.worker.on("exit", () => (this.recordSettled = true));
       this.worker.on("error", (e) => settle({ status: "failed", plan: null, cost: null, lowerBound: null, expanded: 0, stopReason: e.message, seconds: 0, record: null }));
       this.worker.on("exit", () => settle({ status: "failed", plan: null, cost: null, lowerBound: null, expanded: 0, stopReason: "stopped", seconds: 0, record: null }));
     });

@@ -21,4 +21,5 @@ parentPort!.postMessage(result);
 // an optimal plan found: the search that found it is recorded (every state it stored), so the
 // optimum can be certified without SAT (claim landmark-search, checked by the audit)
 const rec = record();
-if (rec) parentPort!.postMessage({ ...result, record: rec });
+// a second message always follows a solved result: the record, or null when none could be made
+if (r.status === "solved") parentPort!.postMessage({ ...result, record: rec, recordDone: true });

@@ -31,6 +31,11 @@ export class LandmarkCutHeuristic implements StateHeuristic {
   rounds = 0;
   /** Sum of the landmark costs of the last evaluation (before the h-max floor). */
   lastLandmarkSum = 0;
+  /**
+   * Stop cutting once the landmarks found sum to this much (the value returned is then that sum,
+   * still admissible): a search record needs only enough landmarks to reach its bound.
+   */
+  stopAt = Infinity;
 
   constructor(
     rt: RelaxedTask,
@@ -141,6 +146,10 @@ export class LandmarkCutHeuristic implements StateHeuristic {
       if (this.record) {
         const acts = Array.from(this.cutActs.subarray(0, ncut)).sort((x, y) => x - y);
         this.record.push({ actions: acts, cost: m });
+      }
+      if (total >= this.stopAt) {
+        this.lastLandmarkSum = total;
+        return total;
       }
       hmax = ex.decreaseMax(this.cutActs, ncut, rem);
     }

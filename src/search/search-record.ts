@@ -69,7 +69,13 @@ function recordOf(ct: CompiledTask, rt: RelaxedTask, space: SearchSpace, bound: 
       continue;
     }
     const lms: Landmark[] = [];
+    const need = bound - g;
+    if (need <= 0) {
+      entries.push({ facts, g, expanded: false, landmarks: [] });
+      continue;
+    }
     recorder.record = lms;
+    recorder.stopAt = need; // enough landmarks to reach the bound: no full evaluation needed
     const h = recorder.evaluate(space.table.arena, off);
     recorder.record = null;
     if (h === Infinity) {
@@ -78,7 +84,6 @@ function recordOf(ct: CompiledTask, rt: RelaxedTask, space: SearchSpace, bound: 
     }
     // the dearest landmarks first, as few as reach the bound
     lms.sort((x, y) => y.cost - x.cost);
-    const need = bound - g;
     const keep: Landmark[] = [];
     let sum = 0;
     for (const l of lms) {

@@ -3,7 +3,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import type { Task } from "../../src/ground/task.js";
-import { compileTask, evaluateState, LandmarkCutHeuristic, packFacts, RelaxedTask } from "../../src/search/index.js";
+import { compileTask, evaluateState, LandmarkCutHeuristic, packFacts, RelaxedTask, type Landmark } from "../../src/search/index.js";
 import { optimalCost, reachableStates } from "../support/reference.js";
 import { factoredTaskArb } from "../support/random-task.js";
 import { nonTrivial, richTaskArb, shiftFacts, withInit, withRandomCosts } from "./rich-task.js";
@@ -66,6 +66,24 @@ function checkAllStates(task: Task, dominance: boolean): void {
     const sum = Number.isFinite(raw) ? lmRaw.lastLandmarkSum : Infinity;
     expect(sum).toBeLessThanOrEqual(hstar);
     if (dominance) expect(sum).toBeGreaterThanOrEqual(hmax);
+    // cut short at a target (as a search record does): the same first landmarks, enough of them
+    if (Number.isFinite(raw) && sum > 0) {
+      const full: Landmark[] = [];
+      lmRaw.record = full;
+      lmRaw.evaluate(packFacts(facts, ct.words), 0);
+      for (const target of [1, Math.ceil(sum / 2), sum]) {
+        const part: Landmark[] = [];
+        lmRaw.record = part;
+        lmRaw.stopAt = target;
+        const v = lmRaw.evaluate(packFacts(facts, ct.words), 0);
+        lmRaw.stopAt = Infinity;
+        const got = part.reduce((a, l) => a + l.cost, 0);
+        expect(got).toBeGreaterThanOrEqual(target);
+        expect(v).toBe(got);
+        expect(part).toEqual(full.slice(0, part.length));
+      }
+      lmRaw.record = null;
+    }
     // a dead end for one relaxation heuristic is a dead end for all (same relaxed reachability)
     expect(Number.isFinite(hff)).toBe(Number.isFinite(hmax));
     expect(Number.isFinite(hLandmarkCut)).toBe(Number.isFinite(hmax));
