@@ -104,11 +104,11 @@ export class Run {
   }
 
   /**
-   * Milliseconds a SAT query waits after an unfinished time slice (of about 500 ms): three
+   * Milliseconds a SAT query waits after an unfinished time slice (of about 500 ms): five
    * slices while the helper's A* is running on the shared core, else none.
    */
   satPause(): number {
-    return this.turnTaking && this.helper?.running === true ? 3 * SLICE_MS : 0;
+    return this.turnTaking && this.helper?.running === true ? 5 * SLICE_MS : 0;
   }
 
   /** Takes the helper's result if it has arrived: an optimal plan becomes the incumbent. True when something changed. */

@@ -75,8 +75,8 @@ export interface OptimizeOptions {
   /**
    * Cores the run may keep busy (default: the machine's, at most 2). With 2 or more the A*
    * helper has a core of its own; with 1 the two take turns: while A* runs, a SAT query that
-   * has not finished in a time slice waits three slices before its next one (SAT gets a
-   * quarter of the core, A* the rest), and once A* has ended the SAT side runs unhindered.
+   * has not finished in a time slice waits five slices before its next one (SAT gets a sixth
+   * of the core, A* the rest), and once A* has ended the SAT side runs unhindered.
    */
   threads?: number;
   /**
