@@ -60,8 +60,10 @@ describe("plumbline solve + audit", () => {
     const out = path.join(work, "limit");
     fs.mkdirSync(out);
     const plan = path.join(out, "plan.txt");
-    // problem-05: no proof of any kind within seconds (a certificate needs about 20 s)
-    const r = await cli(["solve", H("domain.pddl"), H("problem-05.pddl"), "--json", "--time-limit", "3", "--plan", plan, "--certificate", path.join(out, "cert")]);
+    // the large harbour task: no proof of any kind within seconds (A* alone needs over 20 s)
+    const problem = path.join(work, "harbour-large-1-limit.pddl");
+    fs.writeFileSync(problem, generateProblem(scenarios.find((s) => s.name === "harbour")!, "large", 1));
+    const r = await cli(["solve", H("domain.pddl"), problem, "--json", "--time-limit", "3", "--plan", plan, "--certificate", path.join(out, "cert")]);
     expect(r.code).toBe(3);
     const j = r.json();
     expect(j.status).toBe("feasible");
@@ -70,7 +72,7 @@ describe("plumbline solve + audit", () => {
     expect(j.gap).toBe(j.cost - j.lowerBound);
     expect(fs.readdirSync(out)).toEqual(["plan.txt"]);
     expect(parsePlan(fs.readFileSync(plan, "utf8"), "plan")).toHaveLength(j.length);
-    const rep = await cli(["replay", H("domain.pddl"), H("problem-05.pddl"), plan, "--json"]);
+    const rep = await cli(["replay", H("domain.pddl"), problem, plan, "--json"]);
     expect(rep.json()).toMatchObject({ valid: true, cost: j.cost });
   });
 
