@@ -105,8 +105,9 @@ export function unaryAssumptions(r: UnaryResult, B: number): number[] {
 
 /**
  * cost-prune-1 on cost-unary-1: the literal of lb is o_k, k = min(lb, cap) (0 when the counter
- * never reaches k); first the implication chain from high to low outputs [−o_{j+1}, o_j] for j = 1..kmax−1 over the outputs
- * that exist, so that the assumption −o_{B+1} propagates −o_k for every k > B. null when cap = 0.
+ * never reaches k); first the implication chain from high to low outputs [−o_{j+1}, o_j] for
+ * j = 1..kmax−1 over the outputs that exist, so that the assumption −o_{B+1} propagates −o_k for
+ * every k > B. null when cap = 0.
  */
 export function unaryAtLeast(cnf: { addClause(lits: ArrayLike<number>): void }, outputs: readonly number[], lbs: readonly number[]): number[] | null {
   const cap = outputs.length;
