@@ -3,6 +3,7 @@
 import * as fs from "node:fs";
 import * as path from "node:path";
 import type { Worker } from "node:worker_threads";
+import type { CompactCnf } from "../sat/index.js";
 import { startThread } from "../util/thread.js";
 import type { Formula } from "./formula.js";
 import type { PortfolioAnswer, PortfolioInput } from "./portfolio-worker.js";
@@ -15,20 +16,7 @@ export class PortfolioRun {
 
   constructor(formula: Formula, units: readonly number[], proofPath: string, deadline: number) {
     this.proofPath = proofPath;
-    // two passes over the clauses: count, then copy into flat typed arrays (no per-clause objects)
-    let n = 0;
-    formula.streamTo({ addClause: (l) => (n += l.length) });
-    const lits = new Int32Array(n);
-    const ends = new Int32Array(formula.numClauses);
-    let at = 0;
-    let c = 0;
-    formula.streamTo({
-      addClause: (l) => {
-        for (let i = 0; i < l.length; i++) lits[at++] = l[i];
-        ends[c++] = at;
-      },
-    });
-    const input: PortfolioInput = { numVars: formula.numVars, lits, ends: ends.subarray(0, c), units: [...units], proofPath, deadline: Number.isFinite(deadline) ? deadline : undefined };
+    const input: PortfolioInput = { cnf: reversedWithUnits(formula, units), proofPath, deadline: Number.isFinite(deadline) ? deadline : undefined };
     this.worker = startThread(import.meta.url, "portfolio-worker", input);
     this.worker.on("message", (m: PortfolioAnswer) => {
       if (!this.ended) this.answer = m;
@@ -66,4 +54,35 @@ export class PortfolioRun {
       /* the work directory is gone already */
     }
   }
+}
+
+/**
+ * The formula's clauses in reverse order, then `units` as unit clauses, zero-terminated: the same
+ * clauses (a DRAT proof does not depend on their order) but a different start for the second
+ * solver's activities and watches, so the two search differently.
+ */
+function reversedWithUnits(formula: Formula, units: readonly number[]): CompactCnf {
+  let n = 0;
+  formula.streamTo({ addClause: (l) => (n += l.length) });
+  const fwd = new Int32Array(n);
+  const ends = new Int32Array(formula.numClauses);
+  let at = 0;
+  let c = 0;
+  formula.streamTo({
+    addClause: (l) => {
+      for (let i = 0; i < l.length; i++) fwd[at++] = l[i];
+      ends[c++] = at;
+    },
+  });
+  const lits = new Int32Array(n + c + 2 * units.length);
+  let out = 0;
+  for (let k = c - 1; k >= 0; k--) {
+    for (let i = k === 0 ? 0 : ends[k - 1]; i < ends[k]; i++) lits[out++] = fwd[i];
+    lits[out++] = 0;
+  }
+  for (const u of units) {
+    lits[out++] = u;
+    lits[out++] = 0;
+  }
+  return { numVars: formula.numVars, numClauses: c + units.length, lits };
 }

@@ -283,33 +283,31 @@ export class Run {
     this.dropPortfolioProof(); // a proof belongs to the query it answered, never to a later one
     const units = [...s.formula.boundUnits(bound), ...extra];
     const t0 = Date.now();
-    let race: PortfolioRun | null = null;
+    let race = null as PortfolioRun | null;
     const tick = () => {
       this.progress.tick();
       if (race === null && conflicts === undefined && Date.now() - t0 >= (this.opts.portfolioAfterMs ?? PORTFOLIO_AFTER_MS) && this.portfolioCoreFree()) race = this.startPortfolio(s.formula, units);
     };
-    let q: QueryResult;
     try {
-      q = await s.query(units, this.budget, { conflicts, tick, interrupt: () => this.helperHasNews() || race?.decided != null, pause: () => this.satPause() });
+      const q = await s.query(units, this.budget, { conflicts, tick, interrupt: () => this.helperHasNews() || race?.decided != null, pause: () => this.satPause() });
+      return race === null ? q : await this.settleRace(race, q);
     } catch (e) {
-      await (race as PortfolioRun | null)?.stop();
+      await race?.stop();
       throw e;
     }
-    if (race === null) return q;
-    const r: PortfolioRun = race;
-    const won = q.interrupted ? r.decided : null;
-    if (won === null) {
-      await r.stop();
-      return q;
-    }
+  }
+
+  /** The answer of a raced query: the second solver's when it decided first (the session gave way), else the session's. */
+  private async settleRace(race: PortfolioRun, q: QueryResult): Promise<QueryResult> {
+    const won = q.interrupted ? race.decided : null;
+    await race.stop(won?.status === "unsat"); // an unsat winner's proof file is kept
+    if (won === null) return q;
     this.conflicts += won.conflicts;
     this.event("portfolio", `the second solver answered first: ${won.status} (${won.conflicts} conflicts)`);
     if (won.status === "unsat") {
-      await r.stop(true);
       this.portfolioProof = { file: won.proof!.file, bytes: won.proof!.bytes, format: "binary", engine: "builtin" };
       return { status: "unsat", proved: true };
     }
-    await r.stop();
     const model = won.model!;
     return { status: "sat", value: (v) => model[v] === 1 };
   }
@@ -335,12 +333,12 @@ export class Run {
   }
 
   private portfolioProof: ProofFile | null = null;
+  private portfolioSeq = 0;
 
   private dropPortfolioProof(): void {
     if (this.portfolioProof) fs.rmSync(this.portfolioProof.file, { force: true });
     this.portfolioProof = null;
   }
-  private portfolioSeq = 0;
 
   /**
    * Is a core free for a second solver? With two threads or more, the built-in solver, the A*

@@ -88,18 +88,15 @@ export function builtinSession(formula: Formula, proofPath: string | null): SatS
         const slice = Math.min(budget.deadline, Date.now() + SLICE_MS);
         const r = await solver.solveAsync(units, { deadline: slice, conflicts: left, signal: budget.signal });
         opts.tick?.();
-        if (r !== "sat" && r !== "unsat" && opts.interrupt?.()) return { status: "unknown", interrupted: true };
         if (r !== "sat" && r !== "unsat") {
+          if (opts.interrupt?.()) return { status: "unknown", interrupted: true };
           const wait = opts.pause?.() ?? 0;
           if (wait > 0) await budget.sleep(wait);
+          continue;
         }
-        if (r === "sat") {
-          return { status: "sat", value: (v: number) => solver.value(v) === true };
-        }
-        if (r === "unsat") {
-          lastUnsat = true;
-          return { status: "unsat", proved: writer !== null };
-        }
+        if (r === "sat") return { status: "sat", value: (v: number) => solver.value(v) === true };
+        lastUnsat = true;
+        return { status: "unsat", proved: writer !== null };
       }
     },
     stats: () => ({ conflicts: solver.stats().conflicts, calls }),

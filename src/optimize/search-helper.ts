@@ -49,9 +49,11 @@ export class SearchHelper {
           this.recordSettled = true;
         } else settle(m);
       });
-      this.worker.on("exit", () => (this.recordSettled = true));
       this.worker.on("error", (e) => settle({ status: "failed", plan: null, cost: null, lowerBound: null, expanded: 0, stopReason: e.message, seconds: 0, record: null }));
-      this.worker.on("exit", () => settle({ status: "failed", plan: null, cost: null, lowerBound: null, expanded: 0, stopReason: "stopped", seconds: 0, record: null }));
+      this.worker.on("exit", () => {
+        this.recordSettled = true;
+        settle({ status: "failed", plan: null, cost: null, lowerBound: null, expanded: 0, stopReason: "stopped", seconds: 0, record: null });
+      });
     });
     this.exited = new Promise((resolve) => this.worker.once("exit", () => resolve()));
     this.worker.unref();

@@ -68,12 +68,12 @@ function recordOf(ct: CompiledTask, rt: RelaxedTask, space: SearchSpace, bound: 
       entries.push({ facts, g, expanded: true });
       continue;
     }
-    const lms: Landmark[] = [];
     const need = bound - g;
     if (need <= 0) {
       entries.push({ facts, g, expanded: false, landmarks: [] });
       continue;
     }
+    const lms: Landmark[] = [];
     recorder.record = lms;
     recorder.stopAt = need; // enough landmarks to reach the bound: no full evaluation needed
     const h = recorder.evaluate(space.table.arena, off);
