@@ -60,10 +60,11 @@ describe("plumbline solve + audit", () => {
     const out = path.join(work, "limit");
     fs.mkdirSync(out);
     const plan = path.join(out, "plan.txt");
-    // the large harbour task: no proof of any kind within seconds (A* alone needs over 20 s)
+    // the large harbour task: a first plan within a second or two (more under a loaded test run),
+    // no proof of any kind for far longer (A* alone needs over 20 s)
     const problem = path.join(work, "harbour-large-1-limit.pddl");
     fs.writeFileSync(problem, generateProblem(scenarios.find((s) => s.name === "harbour")!, "large", 1));
-    const r = await cli(["solve", H("domain.pddl"), problem, "--json", "--time-limit", "3", "--plan", plan, "--certificate", path.join(out, "cert")]);
+    const r = await cli(["solve", H("domain.pddl"), problem, "--json", "--time-limit", "8", "--plan", plan, "--certificate", path.join(out, "cert")]);
     expect(r.code).toBe(3);
     const j = r.json();
     expect(j.status).toBe("feasible");
